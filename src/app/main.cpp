@@ -1,0 +1,88 @@
+// The edgeflux command line: the only place that knows about exit codes.
+//   0  success            2  a problem in the input (message says where and how to fix it)
+//   1  usage error        3  numerical failure or internal error
+#include <CLI/CLI.hpp>
+#include <fmt/format.h>
+
+#include <cstdio>
+#include <iostream>
+
+#include "core/atomic_file.h"
+#include "core/error.h"
+#include "input/read_detail_file.h"
+#include "pipeline/calculate.h"
+#include "report/json_results.h"
+#include "report/summary_text.h"
+
+namespace {
+
+using namespace edgeflux;
+
+struct SolveArgs {
+  std::string detail_file;
+  std::string json_file;
+  double density = 0.0;
+  std::string mesher;
+  std::string solver = "cholesky";
+  bool quiet = false;
+};
+
+int run_solve(const SolveArgs& args) {
+  const CrossSection section = read_detail_file(args.detail_file);
+  CalculationOptions options;
+  if (args.density > 0.0) options.density = args.density;
+  if (args.mesher == "grid") options.mesher = MeshSettings::Mesher::grid;
+  else if (args.mesher == "delaunay") options.mesher = MeshSettings::Mesher::delaunay;
+  else if (args.mesher == "automatic") options.mesher = MeshSettings::Mesher::automatic;
+  if (args.solver == "ldlt") options.solve.solver = LinearSolver::simplicial_ldlt;
+  else if (args.solver == "cg") options.solve.solver = LinearSolver::conjugate_gradient;
+  if (!args.quiet) options.progress = [](const std::string& stage) { fmt::print(stderr, "edgeflux: {}…\n", stage); };
+
+  const Calculation calc = calculate(section, options);
+  // Every output is built in memory first, so a failure leaves no file behind.
+  std::string json;
+  if (!args.json_file.empty()) json = json_results(section, calc).dump(2) + "\n";
+  fmt::print("{}", summary_text(section, calc));
+  if (!args.json_file.empty()) {
+    write_file_atomically(args.json_file, json);
+    fmt::print("Results written to {}\n", args.json_file);
+  }
+  return 0;
+}
+
+}  // namespace
+
+int main(int argc, char** argv) {
+  CLI::App app{"edgeflux — two-dimensional thermal bridge assessment of building-envelope junctions "
+               "(steady-state conduction, ISO 10211 methods)"};
+  app.require_subcommand(1);
+  app.set_version_flag("--version", std::string(EDGEFLUX_VERSION));
+
+  SolveArgs solve;
+  CLI::App* solve_cmd = app.add_subcommand("solve", "Solve a detail file: heat flows, L2D, surface and probe temperatures");
+  solve_cmd->add_option("detail", solve.detail_file, "Detail file (XML, see docs/detail-format.md)")->required();
+  solve_cmd->add_option("--json", solve.json_file, "Also write the results as JSON to this file");
+  solve_cmd->add_option("--density", solve.density, "Mesh density factor (overrides the file; 2 ≈ twice the elements per length)")
+      ->check(CLI::Range(0.01, 64.0));
+  solve_cmd->add_option("--mesher", solve.mesher, "Mesher: automatic, grid (rectilinear sections) or delaunay")
+      ->check(CLI::IsMember({"automatic", "grid", "delaunay"}));
+  solve_cmd->add_option("--solver", solve.solver, "Linear solver: cholesky (default), ldlt or cg")
+      ->check(CLI::IsMember({"cholesky", "ldlt", "cg"}));
+  solve_cmd->add_flag("-q,--quiet", solve.quiet, "Do not print progress");
+
+  try {
+    app.parse(argc, argv);
+  } catch (const CLI::ParseError& e) {
+    return app.exit(e);
+  }
+  try {
+    if (*solve_cmd) return run_solve(solve);
+  } catch (const InputError& e) {
+    fmt::print(stderr, "edgeflux: error: {}\n", e.what());
+    return 2;
+  } catch (const std::exception& e) {
+    fmt::print(stderr, "edgeflux: failed: {}\n", e.what());
+    return 3;
+  }
+  return 1;
+}

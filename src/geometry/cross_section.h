@@ -1,0 +1,116 @@
+// The cross-section as the user described it, in SI units: the plain data every later stage reads.
+#pragma once
+
+#include <cstddef>
+#include <limits>
+#include <optional>
+#include <string>
+#include <vector>
+
+#include "core/error.h"
+#include "core/point.h"
+
+namespace edgeflux {
+
+struct Material {
+  std::string id;
+  double conductivity = 0.0;  ///< λ, W/(m·K), > 0
+  std::string source;         ///< where the value comes from (standard and table, or "declared")
+  SourceLocation where;
+};
+
+/// A painted area. Regions are painted in file order: where two overlap, the later one wins.
+struct Region {
+  std::string name;            ///< user's name, or "region N" (1-based, file order)
+  std::size_t material = 0;    ///< index into CrossSection::materials
+  std::vector<Point> outline;  ///< m, counter-clockwise, not repeated at the end, ≥ 3 points
+  SourceLocation where;
+};
+
+/// Which side of the envelope an environment is on; decides which surface resistances the
+/// surface-temperature run replaces.
+enum class Side { interior, exterior, other };
+
+struct Environment {
+  std::string id;
+  double temperature = 0.0;  ///< θ, °C
+  Side side = Side::other;
+  SourceLocation where;
+};
+
+/// Surface kind: glazing and frames keep Rsi = 0.13 in the surface-temperature run (ISO 13788).
+enum class SurfaceKind { opaque, glazing };
+
+/// A path along the outer boundary exposed to an environment through a surface resistance.
+/// A resistance of zero means a fixed surface temperature equal to the environment's.
+struct Surface {
+  std::string name;
+  std::size_t environment = 0;       ///< index into CrossSection::environments
+  double resistance = 0.0;           ///< Rs of the heat-loss run, m²K/W, ≥ 0
+  double temperature_run_resistance = 0.0;  ///< Rs of the surface-temperature run, m²K/W
+  SurfaceKind kind = SurfaceKind::opaque;
+  std::vector<Point> path;           ///< m, polyline, ≥ 2 points
+  SourceLocation where;
+
+  bool is_fixed_temperature() const { return resistance == 0.0; }
+};
+
+struct Probe {
+  std::string name;
+  Point at;  ///< m
+  SourceLocation where;
+};
+
+/// A flanking element of the junction: where it meets its cut-off plane and the lengths over
+/// which its U-value applies in each ISO 14683 dimension system.
+enum class DimensionSystem { internal, overall_internal, external };
+inline constexpr DimensionSystem all_dimension_systems[] = {
+    DimensionSystem::internal, DimensionSystem::overall_internal, DimensionSystem::external};
+
+struct FlankingElement {
+  std::string id;
+  Point cut_off_start, cut_off_end;  ///< m, the straight adiabatic edge crossing the element
+  std::optional<double> u_value;     ///< W/(m²K) when the user states it
+  std::optional<double> length[3];   ///< m, per DimensionSystem (index by enum value)
+  SourceLocation where;
+};
+
+/// Interior climate for the condensation and mould verdict (ISO 13788).
+struct Climate {
+  double interior_temperature = 20.0;  ///< °C
+  std::optional<double> interior_relative_humidity;  ///< 0–1
+  std::optional<int> humidity_class;                 ///< ISO 13788 class 1–5
+  double exterior_temperature = -5.0;  ///< °C
+  double exterior_relative_humidity = 0.8;  ///< 0–1, used with humidity classes
+  std::string rule = "none";           ///< national fRsi rule preset id, or "none"
+  SourceLocation where;
+};
+
+struct MeshSettings {
+  enum class Mesher { automatic, grid, delaunay };
+  Mesher mesher = Mesher::automatic;
+  double density = 1.0;  ///< multiplies the number of elements along every length
+};
+
+struct CrossSection {
+  std::string title;
+  std::string notes;
+  std::string file;          ///< path the section was read from
+  std::string unit = "mm";   ///< the unit the user wrote coordinates in (for messages)
+  double metres_per_unit = 0.001;
+  std::vector<Material> materials;
+  std::vector<Region> regions;
+  std::vector<Environment> environments;
+  std::vector<Surface> surfaces;
+  std::vector<Probe> probes;
+  std::vector<FlankingElement> flanking_elements;
+  std::optional<Climate> climate;
+  MeshSettings mesh;
+
+  /// "(x, y) mm" in the user's unit, for messages.
+  std::string format_point(Point p) const {
+    return format_point_for_user(p.x, p.y, metres_per_unit, unit.c_str());
+  }
+};
+
+}  // namespace edgeflux

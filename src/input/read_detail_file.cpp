@@ -1,0 +1,453 @@
+// Reads the XML detail file into a CrossSection, rejecting anything unknown or malformed with a
+// message that says where it is and how to fix it.
+#include "input/read_detail_file.h"
+
+#include <fmt/format.h>
+#include <tinyxml2.h>
+
+#include <algorithm>
+#include <charconv>
+#include <cmath>
+#include <fstream>
+#include <map>
+#include <set>
+#include <sstream>
+
+#include "geometry/validate_cross_section.h"
+#include "physics/surface_resistance.h"
+
+namespace edgeflux {
+namespace {
+
+using tinyxml2::XMLElement;
+
+class Reader {
+ public:
+  explicit Reader(std::string file) : file_(std::move(file)) {}
+
+  CrossSection read(const std::string& text) {
+    tinyxml2::XMLDocument doc;
+    if (doc.Parse(text.c_str(), text.size()) != tinyxml2::XML_SUCCESS) {
+      throw_input_error({file_, doc.ErrorLineNum()}, "XML",
+                        fmt::format("the file is not well-formed XML ({})", doc.ErrorStr()),
+                        "check the tags and quotes near this line");
+    }
+    const XMLElement* root = doc.RootElement();
+    if (root == nullptr || std::string(root->Name()) != "edgeflux-detail")
+      throw_input_error({file_, root ? root->GetLineNum() : 1}, "root element",
+                        fmt::format("expected <edgeflux-detail>, found <{}>", root ? root->Name() : ""),
+                        "start the file with <edgeflux-detail format=\"1\" units=\"mm\">");
+    allow_attributes(root, {"format", "units"});
+    const std::string format = optional_text(root, "format", "1");
+    if (format != "1")
+      throw_input_error(where(root), "<edgeflux-detail>", fmt::format("format \"{}\" is not known", format),
+                        "this version reads format=\"1\"");
+    section_.file = file_;
+    const std::string units = optional_text(root, "units", "mm");
+    if (units == "mm") section_.metres_per_unit = 0.001;
+    else if (units == "cm") section_.metres_per_unit = 0.01;
+    else if (units == "m") section_.metres_per_unit = 1.0;
+    else
+      throw_input_error(where(root), "<edgeflux-detail>", fmt::format("units \"{}\" is not known", units),
+                        "use units=\"mm\", \"cm\" or \"m\"");
+    section_.unit = units;
+
+    for (const XMLElement* e = root->FirstChildElement(); e; e = e->NextSiblingElement()) {
+      const std::string name = e->Name();
+      if (name == "title") section_.title = element_text(e);
+      else if (name == "notes") section_.notes = element_text(e);
+      else if (name == "materials") for_children(e, "material", [&](const XMLElement* m) { read_material(m); });
+      else if (name == "regions") read_regions(e);
+      else if (name == "environments") for_children(e, "environment", [&](const XMLElement* v) { read_environment(v); });
+      else if (name == "boundaries") read_boundaries(e);
+      else if (name == "probes") for_children(e, "probe", [&](const XMLElement* p) { read_probe(p); });
+      else if (name == "flanking-elements") for_children(e, "element", [&](const XMLElement* f) { read_flanking(f); });
+      else if (name == "climate") read_climate(e);
+      else if (name == "mesh") read_mesh(e);
+      else
+        throw_input_error(where(e), fmt::format("<{}>", name), "this element is not part of the detail format",
+                          "use title, notes, materials, regions, environments, boundaries, probes, "
+                          "flanking-elements, climate or mesh (see docs/detail-format.md)");
+    }
+    resolve_references();
+    validate_cross_section(section_);
+    return std::move(section_);
+  }
+
+ private:
+  std::string file_;
+  CrossSection section_;
+  // References are resolved after reading so the order of the blocks in the file does not matter.
+  struct PendingRef { std::size_t* target; std::string id; SourceLocation where; std::string object; };
+  std::vector<PendingRef> material_refs_, environment_refs_;
+  std::vector<std::string> surface_resistance_text_;  // per surface, for the temperature-run default
+  std::vector<bool> temperature_run_given_;
+
+  SourceLocation where(const XMLElement* e) const { return {file_, e->GetLineNum()}; }
+
+  static std::string element_text(const XMLElement* e) { return e->GetText() ? e->GetText() : ""; }
+
+  template <class F>
+  void for_children(const XMLElement* parent, const char* child, F&& read_one) {
+    allow_attributes(parent, {});
+    for (const XMLElement* e = parent->FirstChildElement(); e; e = e->NextSiblingElement()) {
+      if (std::string(e->Name()) != child)
+        throw_input_error(where(e), fmt::format("<{}>", e->Name()),
+                          fmt::format("only <{}> elements belong inside <{}>", child, parent->Name()),
+                          "move or remove this element");
+      read_one(e);
+    }
+  }
+
+  void allow_attributes(const XMLElement* e, std::initializer_list<const char*> allowed) const {
+    for (const tinyxml2::XMLAttribute* a = e->FirstAttribute(); a; a = a->Next()) {
+      const bool ok = std::any_of(allowed.begin(), allowed.end(),
+                                  [&](const char* name) { return std::string(name) == a->Name(); });
+      if (!ok) {
+        std::string list;
+        for (const char* name : allowed) list += (list.empty() ? "" : ", ") + std::string(name);
+        throw_input_error(where(e), fmt::format("<{}>", e->Name()),
+                          fmt::format("attribute \"{}\" is not known here", a->Name()),
+                          list.empty() ? "remove it" : fmt::format("the attributes allowed are: {}", list));
+      }
+    }
+  }
+
+  std::string describe(const XMLElement* e) const {
+    for (const char* key : {"id", "name"})
+      if (const char* v = e->Attribute(key)) return fmt::format("<{} {}=\"{}\">", e->Name(), key, v);
+    return fmt::format("<{}>", e->Name());
+  }
+
+  std::string required_text(const XMLElement* e, const char* attribute) const {
+    const char* v = e->Attribute(attribute);
+    if (v == nullptr || std::string(v).empty())
+      throw_input_error(where(e), describe(e), fmt::format("attribute \"{}\" is missing", attribute),
+                        fmt::format("add {}=\"...\"", attribute));
+    return v;
+  }
+
+  static std::string optional_text(const XMLElement* e, const char* attribute, const char* fallback) {
+    const char* v = e->Attribute(attribute);
+    return v ? v : fallback;
+  }
+
+  /// Parses one finite number; `what` names it in the message.
+  double parse_number(const std::string& text, const XMLElement* e, const std::string& what) const {
+    const char* begin = text.data();
+    const char* end = begin + text.size();
+    while (begin < end && std::isspace(static_cast<unsigned char>(*begin))) ++begin;
+    while (end > begin && std::isspace(static_cast<unsigned char>(end[-1]))) --end;
+    if (begin < end && *begin == '+') ++begin;
+    double value = 0.0;
+    const auto [ptr, ec] = std::from_chars(begin, end, value);
+    if (ec != std::errc() || ptr != end || begin == end)
+      throw_input_error(where(e), describe(e), fmt::format("{} \"{}\" is not a number", what, text),
+                        "write a plain decimal number such as 0.035 or 200");
+    if (!std::isfinite(value))
+      throw_input_error(where(e), describe(e), fmt::format("{} \"{}\" is not a finite number", what, text),
+                        "write a finite decimal number");
+    return value;
+  }
+
+  double required_number(const XMLElement* e, const char* attribute) const {
+    return parse_number(required_text(e, attribute), e, fmt::format("attribute \"{}\"", attribute));
+  }
+
+  /// "x,y x,y ..." in the file's unit → metres.
+  std::vector<Point> parse_points(const XMLElement* e, const char* attribute) const {
+    std::string text = required_text(e, attribute);
+    std::replace(text.begin(), text.end(), ',', ' ');
+    std::replace(text.begin(), text.end(), ';', ' ');
+    std::istringstream in(text);
+    std::vector<double> numbers;
+    for (std::string token; in >> token;)
+      numbers.push_back(parse_number(token, e, fmt::format("coordinate in \"{}\"", attribute)));
+    if (numbers.size() % 2 != 0)
+      throw_input_error(where(e), describe(e),
+                        fmt::format("attribute \"{}\" has an odd number of coordinates ({})", attribute, numbers.size()),
+                        "give points as x,y pairs separated by spaces, e.g. \"0,0 200,0\"");
+    std::vector<Point> points;
+    for (std::size_t i = 0; i + 1 < numbers.size(); i += 2)
+      points.push_back({numbers[i] * section_.metres_per_unit, numbers[i + 1] * section_.metres_per_unit});
+    return points;
+  }
+
+  Point parse_point(const XMLElement* e, const char* attribute) const {
+    const auto points = parse_points(e, attribute);
+    if (points.size() != 1)
+      throw_input_error(where(e), describe(e),
+                        fmt::format("attribute \"{}\" must be one point x,y", attribute), "write e.g. \"0,47.5\"");
+    return points[0];
+  }
+
+  void read_material(const XMLElement* e) {
+    allow_attributes(e, {"id", "conductivity", "source"});
+    Material m;
+    m.id = required_text(e, "id");
+    m.where = where(e);
+    m.conductivity = required_number(e, "conductivity");
+    m.source = optional_text(e, "source", "not stated");
+    if (!(m.conductivity > 0.0))
+      throw_input_error(m.where, describe(e), fmt::format("conductivity {} W/(m·K) is not positive", m.conductivity),
+                        "give the design thermal conductivity λ in W/(m·K), greater than zero");
+    for (const Material& other : section_.materials)
+      if (other.id == m.id)
+        throw_input_error(m.where, describe(e), fmt::format("material id \"{}\" is already used on line {}", m.id, other.where.line),
+                          "give each material its own id");
+    section_.materials.push_back(std::move(m));
+  }
+
+  void read_regions(const XMLElement* parent) {
+    allow_attributes(parent, {});
+    for (const XMLElement* e = parent->FirstChildElement(); e; e = e->NextSiblingElement()) {
+      const std::string kind = e->Name();
+      Region region;
+      region.where = where(e);
+      if (kind == "rectangle") {
+        allow_attributes(e, {"name", "material", "from", "to"});
+        const Point a = parse_point(e, "from"), b = parse_point(e, "to");
+        const double x0 = std::min(a.x, b.x), x1 = std::max(a.x, b.x);
+        const double y0 = std::min(a.y, b.y), y1 = std::max(a.y, b.y);
+        region.outline = {{x0, y0}, {x1, y0}, {x1, y1}, {x0, y1}};
+      } else if (kind == "polygon") {
+        allow_attributes(e, {"name", "material", "points"});
+        region.outline = parse_points(e, "points");
+        // The outline closes itself; a repeated first point at the end is accepted and dropped.
+        if (region.outline.size() > 1 && region.outline.front().x == region.outline.back().x &&
+            region.outline.front().y == region.outline.back().y)
+          region.outline.pop_back();
+      } else {
+        throw_input_error(where(e), fmt::format("<{}>", kind), "only <rectangle> and <polygon> belong inside <regions>",
+                          "describe the area as a rectangle (from, to) or a polygon (points)");
+      }
+      region.name = optional_text(e, "name", "");
+      if (region.name.empty()) region.name = fmt::format("{} {}", kind, section_.regions.size() + 1);
+      section_.regions.push_back(std::move(region));
+      material_refs_.push_back({nullptr, required_text(e, "material"), where(e), describe(e)});
+    }
+  }
+
+  void read_environment(const XMLElement* e) {
+    allow_attributes(e, {"id", "temperature", "side"});
+    Environment env;
+    env.id = required_text(e, "id");
+    env.where = where(e);
+    env.temperature = required_number(e, "temperature");
+    const std::string side = optional_text(e, "side", "other");
+    if (side == "interior") env.side = Side::interior;
+    else if (side == "exterior") env.side = Side::exterior;
+    else if (side == "other") env.side = Side::other;
+    else
+      throw_input_error(env.where, describe(e), fmt::format("side \"{}\" is not known", side),
+                        "use side=\"interior\", \"exterior\" or \"other\"");
+    if (env.temperature < -273.15)
+      throw_input_error(env.where, describe(e), fmt::format("temperature {} °C is below absolute zero", env.temperature),
+                        "give the temperature in degrees Celsius");
+    for (const Environment& other : section_.environments)
+      if (other.id == env.id)
+        throw_input_error(env.where, describe(e), fmt::format("environment id \"{}\" is already used on line {}", env.id, other.where.line),
+                          "give each environment its own id");
+    section_.environments.push_back(std::move(env));
+  }
+
+  double parse_resistance(const XMLElement* e, const std::string& text, const char* attribute) const {
+    if (auto preset = surface_resistance_preset(text)) return *preset;
+    if (!text.empty() && (std::isdigit(static_cast<unsigned char>(text[0])) || text[0] == '.' || text[0] == '-' || text[0] == '+')) {
+      const double value = parse_number(text, e, fmt::format("attribute \"{}\"", attribute));
+      if (value < 0.0)
+        throw_input_error(where(e), describe(e), fmt::format("surface resistance {} m²K/W is negative", value),
+                          "give a resistance ≥ 0 (0 means a fixed surface temperature)");
+      return value;
+    }
+    std::string names;
+    for (const auto& p : surface_resistance_presets()) names += (names.empty() ? "" : ", ") + std::string(p.id);
+    throw_input_error(where(e), describe(e), fmt::format("surface resistance \"{}\" is neither a number nor a preset", text),
+                      fmt::format("give a value in m²K/W or one of: {}", names));
+  }
+
+  void read_boundaries(const XMLElement* parent) {
+    allow_attributes(parent, {});
+    for (const XMLElement* e = parent->FirstChildElement(); e; e = e->NextSiblingElement()) {
+      const std::string kind = e->Name();
+      Surface surface;
+      surface.where = where(e);
+      bool temperature_run_given = false;
+      if (kind == "surface") {
+        allow_attributes(e, {"name", "environment", "resistance", "temperature-run-resistance", "kind", "path"});
+        surface.resistance = parse_resistance(e, required_text(e, "resistance"), "resistance");
+        if (const char* t = e->Attribute("temperature-run-resistance")) {
+          surface.temperature_run_resistance = parse_resistance(e, t, "temperature-run-resistance");
+          temperature_run_given = true;
+        }
+        const std::string surface_kind = optional_text(e, "kind", "opaque");
+        if (surface_kind == "glazing") surface.kind = SurfaceKind::glazing;
+        else if (surface_kind != "opaque")
+          throw_input_error(where(e), describe(e), fmt::format("kind \"{}\" is not known", surface_kind),
+                            "use kind=\"opaque\" or kind=\"glazing\" (glazing and frames)");
+      } else if (kind == "fixed-temperature") {
+        allow_attributes(e, {"name", "environment", "path"});
+        surface.resistance = 0.0;
+      } else {
+        throw_input_error(where(e), fmt::format("<{}>", kind),
+                          "only <surface> and <fixed-temperature> belong inside <boundaries>",
+                          "every boundary edge not named by one of them is adiabatic");
+      }
+      surface.path = parse_points(e, "path");
+      if (surface.path.size() < 2)
+        throw_input_error(where(e), describe(e), "the path needs at least two points",
+                          "give the path as points along the boundary, e.g. \"0,0 0,1000\"");
+      surface.name = optional_text(e, "name", "");
+      if (surface.name.empty()) surface.name = fmt::format("{} {}", kind, section_.surfaces.size() + 1);
+      environment_refs_.push_back({nullptr, required_text(e, "environment"), where(e), describe(e)});
+      temperature_run_given_.push_back(temperature_run_given);
+      section_.surfaces.push_back(std::move(surface));
+    }
+  }
+
+  void read_probe(const XMLElement* e) {
+    allow_attributes(e, {"name", "at"});
+    Probe probe{required_text(e, "name"), parse_point(e, "at"), where(e)};
+    section_.probes.push_back(std::move(probe));
+  }
+
+  void read_flanking(const XMLElement* e) {
+    allow_attributes(e, {"id", "cut-off", "u-value", "length-internal", "length-overall-internal", "length-external"});
+    FlankingElement f;
+    f.id = required_text(e, "id");
+    f.where = where(e);
+    const auto cut = parse_points(e, "cut-off");
+    if (cut.size() != 2)
+      throw_input_error(f.where, describe(e), "cut-off must be two points (the ends of the cut-off edge)",
+                        "write e.g. cut-off=\"0,1200 300,1200\"");
+    f.cut_off_start = cut[0], f.cut_off_end = cut[1];
+    if (e->Attribute("u-value")) {
+      f.u_value = required_number(e, "u-value");
+      if (!(*f.u_value > 0.0))
+        throw_input_error(f.where, describe(e), "u-value must be positive", "give U in W/(m²K)");
+    }
+    const char* keys[3] = {"length-internal", "length-overall-internal", "length-external"};
+    for (int s = 0; s < 3; ++s) {
+      if (!e->Attribute(keys[s])) continue;
+      const double length = required_number(e, keys[s]) * section_.metres_per_unit;
+      if (length < 0.0)
+        throw_input_error(f.where, describe(e), fmt::format("{} is negative", keys[s]), "give a length ≥ 0");
+      f.length[s] = length;
+    }
+    section_.flanking_elements.push_back(std::move(f));
+  }
+
+  void read_climate(const XMLElement* e) {
+    allow_attributes(e, {"interior-temperature", "interior-humidity", "humidity-class", "exterior-temperature",
+                         "exterior-humidity", "rule"});
+    Climate c;
+    c.where = where(e);
+    c.interior_temperature = required_number(e, "interior-temperature");
+    c.exterior_temperature = required_number(e, "exterior-temperature");
+    if (e->Attribute("interior-humidity")) {
+      const double rh = required_number(e, "interior-humidity");
+      if (rh < 0.0 || rh > 100.0)
+        throw_input_error(c.where, "<climate>", fmt::format("interior-humidity {} % is outside 0–100 %", rh),
+                          "give the relative humidity in percent");
+      c.interior_relative_humidity = rh / 100.0;
+    }
+    if (e->Attribute("humidity-class")) {
+      const double cls = required_number(e, "humidity-class");
+      if (cls != std::floor(cls) || cls < 1 || cls > 5)
+        throw_input_error(c.where, "<climate>", fmt::format("humidity-class {} is not 1, 2, 3, 4 or 5", cls),
+                          "use an ISO 13788 internal humidity class 1–5");
+      c.humidity_class = static_cast<int>(cls);
+    }
+    if (e->Attribute("exterior-humidity")) {
+      const double rh = required_number(e, "exterior-humidity");
+      if (rh < 0.0 || rh > 100.0)
+        throw_input_error(c.where, "<climate>", fmt::format("exterior-humidity {} % is outside 0–100 %", rh),
+                          "give the relative humidity in percent");
+      c.exterior_relative_humidity = rh / 100.0;
+    }
+    if (c.interior_relative_humidity.has_value() == c.humidity_class.has_value())
+      throw_input_error(c.where, "<climate>", "give exactly one of interior-humidity and humidity-class",
+                        "e.g. interior-humidity=\"50\" (percent) or humidity-class=\"3\"");
+    if (c.interior_temperature == c.exterior_temperature)
+      throw_input_error(c.where, "<climate>", "interior and exterior temperatures are equal, so fRsi is undefined",
+                        "use the design temperatures of the assessment, e.g. 20 and -5");
+    c.rule = optional_text(e, "rule", "none");
+    section_.climate = c;
+  }
+
+  void read_mesh(const XMLElement* e) {
+    allow_attributes(e, {"density", "mesher"});
+    if (e->Attribute("density")) {
+      section_.mesh.density = required_number(e, "density");
+      if (!(section_.mesh.density > 0.0) || section_.mesh.density > 64.0)
+        throw_input_error(where(e), "<mesh>", fmt::format("density {} is outside (0, 64]", section_.mesh.density),
+                          "use 1 for the default mesh, 2 for about twice the elements along every length");
+    }
+    const std::string mesher = optional_text(e, "mesher", "automatic");
+    if (mesher == "automatic") section_.mesh.mesher = MeshSettings::Mesher::automatic;
+    else if (mesher == "grid") section_.mesh.mesher = MeshSettings::Mesher::grid;
+    else if (mesher == "delaunay") section_.mesh.mesher = MeshSettings::Mesher::delaunay;
+    else
+      throw_input_error(where(e), "<mesh>", fmt::format("mesher \"{}\" is not known", mesher),
+                        "use mesher=\"automatic\", \"grid\" or \"delaunay\"");
+  }
+
+  void resolve_references() {
+    std::map<std::string, std::size_t> materials, environments;
+    for (std::size_t i = 0; i < section_.materials.size(); ++i) materials[section_.materials[i].id] = i;
+    for (std::size_t i = 0; i < section_.environments.size(); ++i) environments[section_.environments[i].id] = i;
+    for (std::size_t r = 0; r < material_refs_.size(); ++r) {
+      const auto& ref = material_refs_[r];
+      const auto it = materials.find(ref.id);
+      if (it == materials.end())
+        throw_input_error(ref.where, ref.object, fmt::format("material \"{}\" is not defined", ref.id),
+                          fmt::format("define <material id=\"{}\" .../> inside <materials>, or use one of: {}", ref.id,
+                                      list_keys(materials)));
+      section_.regions[r].material = it->second;
+    }
+    for (std::size_t s = 0; s < environment_refs_.size(); ++s) {
+      const auto& ref = environment_refs_[s];
+      const auto it = environments.find(ref.id);
+      if (it == environments.end())
+        throw_input_error(ref.where, ref.object, fmt::format("environment \"{}\" is not defined", ref.id),
+                          fmt::format("define <environment id=\"{}\" temperature=\"...\"/> inside <environments>{}", ref.id,
+                                      environments.empty() ? "" : ", or use one of: " + list_keys(environments)));
+      Surface& surface = section_.surfaces[s];
+      surface.environment = it->second;
+      if (!temperature_run_given_[s]) {
+        // ISO 13788: the surface-temperature run uses Rsi = 0.25 on opaque interior surfaces and
+        // 0.13 on glazing and frames; other surfaces keep their heat-loss value.
+        const bool interior = section_.environments[it->second].side == Side::interior;
+        surface.temperature_run_resistance =
+            (interior && !surface.is_fixed_temperature())
+                ? (surface.kind == SurfaceKind::glazing ? temperature_run_surface_resistance_glazing : temperature_run_surface_resistance_opaque)
+                : surface.resistance;
+      }
+    }
+  }
+
+  template <class Map>
+  static std::string list_keys(const Map& m) {
+    std::string out;
+    for (const auto& [key, value] : m) out += (out.empty() ? "" : ", ") + key;
+    return out.empty() ? "(none defined)" : out;
+  }
+};
+
+}  // namespace
+
+CrossSection parse_detail_text(const std::string& text, const std::string& file_name) {
+  return Reader(file_name).read(text);
+}
+
+CrossSection read_detail_file(const std::string& path) {
+  std::ifstream in(path, std::ios::binary);
+  if (!in)
+    throw_input_error({path, 0}, "detail file", "cannot be opened (missing or unreadable)",
+                      "check the path; run 'edgeflux solve --help' for usage");
+  std::ostringstream text;
+  text << in.rdbuf();
+  return parse_detail_text(text.str(), path);
+}
+
+}  // namespace edgeflux

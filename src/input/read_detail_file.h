@@ -1,0 +1,17 @@
+// Reader of the detail file (XML, format 1): the only place that includes tinyxml2.
+#pragma once
+
+#include <string>
+
+#include "geometry/cross_section.h"
+
+namespace edgeflux {
+
+/// Reads and checks a detail file. Throws InputError naming file, line, object and how to fix it.
+/// Coordinates are converted to metres; surface resistance presets are resolved to numbers.
+CrossSection read_detail_file(const std::string& path);
+
+/// Same, from text already in memory; `file_name` is used in messages.
+CrossSection parse_detail_text(const std::string& text, const std::string& file_name);
+
+}  // namespace edgeflux

@@ -1,0 +1,81 @@
+// Convective and radiative transfer across air cavities expressed as an equivalent conductivity.
+#include "physics/cavity.h"
+
+#include <algorithm>
+#include <array>
+#include <cmath>
+#include <stdexcept>
+
+#include <fmt/format.h>
+
+namespace edgeflux {
+
+namespace {
+
+constexpr double c1 = 0.025;  // W/(m·K): conduction through still air dominates narrow cavities
+constexpr double c2 = 0.73;   // W/(m²K^(4/3)): natural convection in wider cavities
+constexpr double c4 = 2.11;   // W/(m²K): half the radiative coefficient of flat faces, ε = 0.9, ~10 °C
+constexpr double cavity_temperature_difference = 10.0;  // K, the standard's design value
+
+void check_cavity_size(double value, const char* which) {
+  if (!std::isfinite(value) || value <= 0.0) {
+    throw std::invalid_argument(
+        fmt::format("frame cavity {} must be a finite value > 0 m, got {}", which, value));
+  }
+}
+
+struct AirLayerRow {
+  double thickness;   // m
+  double resistance;  // m²K/W
+};
+
+// ISO 6946:2017 Table 8, horizontal heat flow. Beyond about 25 mm convection grows as fast as the
+// conduction path lengthens, so the resistance stops increasing.
+constexpr std::array<AirLayerRow, 5> air_layer_table{{
+    {0.005, 0.11}, {0.007, 0.13}, {0.010, 0.15}, {0.015, 0.17}, {0.025, 0.18}}};
+
+}  // namespace
+
+double frame_cavity_conductivity(double depth, double width) {
+  check_cavity_size(depth, "depth (size in the direction of heat flow)");
+  check_cavity_size(width, "width (size across the heat flow)");
+  const double convection =
+      std::max(c1 / depth, c2 * std::cbrt(cavity_temperature_difference));
+  // Radiation between the warm and cold faces: the bracket 1 − d/b + √(1 + d²/b²) is 2 for a flat
+  // cavity (d ≪ b), where the faces see each other fully, and falls towards 1 as the cavity gets
+  // deeper than wide and the faces mostly see the side walls instead.
+  const double aspect = depth / width;
+  const double radiation = c4 * (1.0 - aspect + std::sqrt(1.0 + aspect * aspect));
+  const double surface_to_surface_resistance = 1.0 / (convection + radiation);
+  return depth / surface_to_surface_resistance;
+}
+
+double slightly_ventilated_frame_cavity_conductivity(double depth, double width) {
+  // Air exchange with the outside through the slit carries heat past the cavity as well.
+  return 2.0 * frame_cavity_conductivity(depth, width);
+}
+
+double air_layer_resistance(double thickness) {
+  const AirLayerRow& first = air_layer_table.front();
+  if (!std::isfinite(thickness) || thickness < first.thickness) {
+    throw std::invalid_argument(fmt::format(
+        "air layer thickness must be at least {} mm for the ISO 6946 table, got {} mm; model a "
+        "thinner gap as a frame cavity or as a solid",
+        first.thickness * 1000.0, thickness * 1000.0));
+  }
+  for (std::size_t k = 1; k < air_layer_table.size(); ++k) {
+    const AirLayerRow& lower = air_layer_table[k - 1];
+    const AirLayerRow& upper = air_layer_table[k];
+    if (thickness <= upper.thickness) {
+      const double t = (thickness - lower.thickness) / (upper.thickness - lower.thickness);
+      return lower.resistance + t * (upper.resistance - lower.resistance);
+    }
+  }
+  return air_layer_table.back().resistance;
+}
+
+double air_layer_conductivity(double thickness) {
+  return thickness / air_layer_resistance(thickness);
+}
+
+}  // namespace edgeflux

@@ -1,0 +1,134 @@
+// Every bad input of the core gets one clear message naming file, line, object and coordinates,
+// exit code 2, and no output file. Runs the real program.
+#include <doctest/doctest.h>
+
+#include <cstdio>
+#include <cstdlib>
+#include <filesystem>
+#include <fstream>
+#include <sstream>
+#include <sys/wait.h>
+
+#include "../test_support.h"
+
+namespace fs = std::filesystem;
+
+namespace {
+
+struct Run { int exit_code; std::string output; };
+
+Run run_program(const std::string& arguments) {
+  const std::string command = std::string(EDGEFLUX_BINARY) + " " + arguments + " 2>&1";
+  FILE* pipe = popen(command.c_str(), "r");
+  std::string output;
+  char buffer[4096];
+  while (std::size_t n = fread(buffer, 1, sizeof buffer, pipe)) output.append(buffer, n);
+  const int status = pclose(pipe);
+  return {WIFEXITED(status) ? WEXITSTATUS(status) : -1, output};
+}
+
+fs::path scratch_folder() {
+  const fs::path folder = fs::temp_directory_path() / ("edgeflux-tests-" + std::to_string(::getpid()));
+  fs::create_directories(folder);
+  return folder;
+}
+
+// A good two-layer wall; each case below breaks one thing in it.
+const std::string good_body = R"(
+  <materials>
+    <material id="brick" conductivity="0.8" source="test value"/>
+    <material id="eps" conductivity="0.035" source="test value"/>
+  </materials>
+  <regions>
+    <rectangle name="brick" material="brick" from="0,0" to="200,1000"/>
+    <rectangle name="insulation" material="eps" from="200,0" to="300,1000"/>
+  </regions>
+  <environments>
+    <environment id="in" temperature="20" side="interior"/>
+    <environment id="out" temperature="-5" side="exterior"/>
+  </environments>
+  <boundaries>
+    <surface name="inner face" environment="in" resistance="rsi-horizontal" path="0,1000 0,0"/>
+    <surface name="outer face" environment="out" resistance="rse" path="300,0 300,1000"/>
+  </boundaries>)";
+
+std::string replace(std::string text, const std::string& from, const std::string& to) {
+  const auto at = text.find(from);
+  REQUIRE_MESSAGE(at != std::string::npos, "test setup: text to replace not found: " << from);
+  return text.replace(at, from.size(), to);
+}
+
+struct BadCase {
+  const char* what;
+  std::string text;                      // file content (empty: the file is missing)
+  std::vector<std::string> fragments;    // all must appear in the message
+};
+
+}  // namespace
+
+TEST_CASE("the good wall solves, exit 0, and writes its JSON") {
+  const fs::path folder = scratch_folder();
+  const fs::path input = folder / "good.xml", json = folder / "good.json";
+  std::ofstream(input) << edgeflux::test::detail_xml(good_body);
+  const Run run = run_program("solve -q " + input.string() + " --json " + json.string());
+  CHECK(run.exit_code == 0);
+  CHECK(fs::exists(json));
+  fs::remove_all(folder);
+}
+
+TEST_CASE("bad input: one clear message, exit code 2, no output file") {
+  const std::string good = edgeflux::test::detail_xml(good_body);
+  const std::vector<BadCase> cases = {
+      {"missing file", "", {"missing.xml", "cannot be opened"}},
+      {"XML syntax error", replace(good, "</materials>", "</material>"), {":", "not well-formed XML"}},
+      {"unknown material", replace(good, "material=\"eps\"", "material=\"xps\""),
+       {":9:", "<rectangle name=\"insulation\">", "material \"xps\" is not defined", "brick, eps"}},
+      {"polygon with two points", replace(good, "<rectangle name=\"brick\" material=\"brick\" from=\"0,0\" to=\"200,1000\"/>",
+                                          "<polygon name=\"brick\" material=\"brick\" points=\"0,0 200,0\"/>"),
+       {":8:", "region 'brick'", "2 points", "at least 3"}},
+      {"self-intersecting polygon", replace(good, "<rectangle name=\"brick\" material=\"brick\" from=\"0,0\" to=\"200,1000\"/>",
+                                            "<polygon name=\"brick\" material=\"brick\" points=\"0,0 200,1000 200,0 0,1000\"/>"),
+       {":8:", "region 'brick'", "crosses itself", "(0, 0) mm", "(200, 1000) mm"}},
+      {"odd coordinate count (unclosed pair)", replace(good, "from=\"0,0\" to=\"200,1000\"", "from=\"0,0\" to=\"200\""),
+       {":8:", "odd number of coordinates"}},
+      {"zero conductivity", replace(good, "conductivity=\"0.8\"", "conductivity=\"0\""),
+       {":4:", "material id=\"brick\"", "not positive"}},
+      {"negative conductivity", replace(good, "conductivity=\"0.8\"", "conductivity=\"-0.8\""),
+       {":4:", "not positive"}},
+      {"NaN conductivity", replace(good, "conductivity=\"0.8\"", "conductivity=\"nan\""),
+       {":4:", "\"nan\"", "not a finite number"}},
+      {"NaN coordinate", replace(good, "to=\"300,1000\"", "to=\"300,NaN\""), {":9:", "not a finite number"}},
+      {"uncovered gap", replace(good, "<rectangle name=\"insulation\" material=\"eps\" from=\"200,0\" to=\"300,1000\"/>",
+                                "<rectangle material=\"eps\" from=\"200,0\" to=\"300,400\"/>"
+                                "<rectangle material=\"eps\" from=\"200,600\" to=\"300,1000\"/>"
+                                "<rectangle material=\"eps\" from=\"200,400\" to=\"220,600\"/>"
+                                "<rectangle material=\"eps\" from=\"280,400\" to=\"300,600\"/>"),
+       {"covered by no region", "between (220, 400) mm and (280, 600) mm", "add a region"}},
+      {"surface off the boundary", replace(good, "path=\"300,0 300,1000\"", "path=\"250,0 250,1000\""),
+       {":17:", "surface 'outer face'", "(250, 0) mm", "does not lie on the outer boundary"}},
+      {"no environment", replace(replace(good, "<environment id=\"in\" temperature=\"20\" side=\"interior\"/>", ""),
+                                 "<environment id=\"out\" temperature=\"-5\" side=\"exterior\"/>", ""),
+       {":16:", "environment \"in\" is not defined", "<environment id=\"in\""}},
+      {"single environment", replace(good, "environment=\"out\"", "environment=\"in\""),
+       {":12:", "environment 'in'", "only environment", "at least two environments"}},
+      {"no temperature difference", replace(good, "temperature=\"-5\"", "temperature=\"20\""),
+       {"all surfaces face environments at 20 °C", "different temperatures"}},
+  };
+  const fs::path folder = scratch_folder();
+  for (const BadCase& c : cases) {
+    CAPTURE(c.what);
+    const fs::path input = folder / (c.text.empty() ? "missing.xml" : "bad.xml");
+    const fs::path json = folder / "out.json";
+    if (!c.text.empty()) std::ofstream(input) << c.text;
+    const Run run = run_program("solve -q " + input.string() + " --json " + json.string());
+    CAPTURE(run.output);
+    CHECK(run.exit_code == 2);
+    CHECK_FALSE(fs::exists(json));
+    for (const std::string& fragment : c.fragments) CHECK(run.output.find(fragment) != std::string::npos);
+    // One message: a single line starting with the program's name.
+    CHECK(std::count(run.output.begin(), run.output.end(), '\n') == 1);
+    CHECK(run.output.rfind("edgeflux: error: ", 0) == 0);
+    fs::remove(input);
+  }
+  fs::remove_all(folder);
+}
