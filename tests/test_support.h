@@ -17,7 +17,7 @@ inline Calculation solve_file(const std::string& relative, CalculationOptions op
 }
 
 inline double probe(const Calculation& calc, const std::string& name) {
-  for (const auto& p : calc.field.probes)
+  for (const auto& p : calc.heat_loss.field.probes)
     if (p.name == name) return p.temperature;
   throw std::runtime_error("no probe " + name);
 }

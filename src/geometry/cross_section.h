@@ -66,6 +66,10 @@ struct Probe {
 enum class DimensionSystem { internal, overall_internal, external };
 inline constexpr DimensionSystem all_dimension_systems[] = {
     DimensionSystem::internal, DimensionSystem::overall_internal, DimensionSystem::external};
+/// "internal", "overall internal", "external".
+inline const char* dimension_system_name(DimensionSystem s) {
+  return s == DimensionSystem::internal ? "internal" : s == DimensionSystem::overall_internal ? "overall internal" : "external";
+}
 
 struct FlankingElement {
   std::string id;
@@ -104,6 +108,8 @@ struct CrossSection {
   std::vector<Surface> surfaces;
   std::vector<Probe> probes;
   std::vector<FlankingElement> flanking_elements;
+  std::vector<DimensionSystem> requested_systems;  ///< ψ must be reported in these (may be empty)
+  SourceLocation flanking_where;                   ///< the <flanking-elements> element
   std::optional<Climate> climate;
   MeshSettings mesh;
 

@@ -14,6 +14,7 @@
 #include <sstream>
 
 #include "geometry/validate_cross_section.h"
+#include "physics/moisture_verdict.h"
 #include "physics/surface_resistance.h"
 
 namespace edgeflux {
@@ -61,7 +62,7 @@ class Reader {
       else if (name == "environments") for_children(e, "environment", [&](const XMLElement* v) { read_environment(v); });
       else if (name == "boundaries") read_boundaries(e);
       else if (name == "probes") for_children(e, "probe", [&](const XMLElement* p) { read_probe(p); });
-      else if (name == "flanking-elements") for_children(e, "element", [&](const XMLElement* f) { read_flanking(f); });
+      else if (name == "flanking-elements") read_flanking_elements(e);
       else if (name == "climate") read_climate(e);
       else if (name == "mesh") read_mesh(e);
       else
@@ -311,8 +312,39 @@ class Reader {
     section_.probes.push_back(std::move(probe));
   }
 
-  void read_flanking(const XMLElement* e) {
-    allow_attributes(e, {"id", "cut-off", "u-value", "length-internal", "length-overall-internal", "length-external"});
+  void read_flanking_elements(const XMLElement* parent) {
+    allow_attributes(parent, {"dimension-systems"});
+    section_.flanking_where = where(parent);
+    if (const char* systems = parent->Attribute("dimension-systems")) {
+      std::istringstream in(systems);
+      for (std::string word; in >> word;) {
+        if (word == "internal") section_.requested_systems.push_back(DimensionSystem::internal);
+        else if (word == "overall-internal") section_.requested_systems.push_back(DimensionSystem::overall_internal);
+        else if (word == "external") section_.requested_systems.push_back(DimensionSystem::external);
+        else
+          throw_input_error(where(parent), "<flanking-elements>", fmt::format("dimension system \"{}\" is not known", word),
+                            "list any of: internal overall-internal external");
+      }
+    }
+    std::map<std::string, Point> reference_points;
+    for (const XMLElement* e = parent->FirstChildElement("reference-point"); e; e = e->NextSiblingElement("reference-point")) {
+      allow_attributes(e, {"name", "at"});
+      if (!reference_points.emplace(required_text(e, "name"), parse_point(e, "at")).second)
+        throw_input_error(where(e), describe(e), "this reference-point name is already used", "give each point its own name");
+    }
+    for (const XMLElement* e = parent->FirstChildElement(); e; e = e->NextSiblingElement()) {
+      const std::string name = e->Name();
+      if (name == "reference-point") continue;
+      if (name != "element")
+        throw_input_error(where(e), fmt::format("<{}>", name), "only <element> and <reference-point> belong inside <flanking-elements>",
+                          "move or remove this element");
+      read_flanking(e, reference_points);
+    }
+  }
+
+  void read_flanking(const XMLElement* e, const std::map<std::string, Point>& reference_points) {
+    allow_attributes(e, {"id", "cut-off", "u-value", "length-internal", "length-overall-internal", "length-external",
+                         "internal-from", "overall-internal-from", "external-from"});
     FlankingElement f;
     f.id = required_text(e, "id");
     f.where = where(e);
@@ -321,18 +353,34 @@ class Reader {
       throw_input_error(f.where, describe(e), "cut-off must be two points (the ends of the cut-off edge)",
                         "write e.g. cut-off=\"0,1200 300,1200\"");
     f.cut_off_start = cut[0], f.cut_off_end = cut[1];
+    if (distance(cut[0], cut[1]) == 0.0)
+      throw_input_error(f.where, describe(e), "the two cut-off points coincide", "give both ends of the cut-off edge");
     if (e->Attribute("u-value")) {
       f.u_value = required_number(e, "u-value");
       if (!(*f.u_value > 0.0))
         throw_input_error(f.where, describe(e), "u-value must be positive", "give U in W/(m²K)");
     }
-    const char* keys[3] = {"length-internal", "length-overall-internal", "length-external"};
+    const char* length_keys[3] = {"length-internal", "length-overall-internal", "length-external"};
+    const char* from_keys[3] = {"internal-from", "overall-internal-from", "external-from"};
     for (int s = 0; s < 3; ++s) {
-      if (!e->Attribute(keys[s])) continue;
-      const double length = required_number(e, keys[s]) * section_.metres_per_unit;
-      if (length < 0.0)
-        throw_input_error(f.where, describe(e), fmt::format("{} is negative", keys[s]), "give a length ≥ 0");
-      f.length[s] = length;
+      if (e->Attribute(length_keys[s]) && e->Attribute(from_keys[s]))
+        throw_input_error(f.where, describe(e), fmt::format("both {} and {} are given", length_keys[s], from_keys[s]),
+                          "state the length or name the reference point it is measured from, not both");
+      if (e->Attribute(length_keys[s])) {
+        const double length = required_number(e, length_keys[s]) * section_.metres_per_unit;
+        if (length < 0.0)
+          throw_input_error(f.where, describe(e), fmt::format("{} is negative", length_keys[s]), "give a length ≥ 0");
+        f.length[s] = length;
+      } else if (const char* from = e->Attribute(from_keys[s])) {
+        const auto it = reference_points.find(from);
+        if (it == reference_points.end())
+          throw_input_error(f.where, describe(e), fmt::format("reference point \"{}\" is not defined", from),
+                            fmt::format("add <reference-point name=\"{}\" at=\"x,y\"/> inside <flanking-elements>", from));
+        // The length over which U applies runs from the reference point (a face of the junction in
+        // that dimension system) to the cut-off plane: the point's distance from the cut-off line.
+        const Point d = f.cut_off_end - f.cut_off_start;
+        f.length[s] = std::abs(cross(d, it->second - f.cut_off_start)) / norm(d);
+      }
     }
     section_.flanking_elements.push_back(std::move(f));
   }
@@ -372,6 +420,12 @@ class Reader {
       throw_input_error(c.where, "<climate>", "interior and exterior temperatures are equal, so fRsi is undefined",
                         "use the design temperatures of the assessment, e.g. 20 and -5");
     c.rule = optional_text(e, "rule", "none");
+    if (!minimum_temperature_factor_rule(c.rule)) {
+      std::string names;
+      for (const auto& r : minimum_temperature_factor_rules()) names += (names.empty() ? "" : ", ") + std::string(r.id);
+      throw_input_error(c.where, "<climate>", fmt::format("rule \"{}\" is not known", c.rule),
+                        fmt::format("use one of: {}", names));
+    }
     section_.climate = c;
   }
 

@@ -182,7 +182,8 @@ TriMesh mesh_cross_section(const CrossSection& section, const MeshOptions& optio
     for (int k = 0; k < 3; ++k) {
       const int u = neighbours[t][k];
       if (u >= 0 && new_triangle[u] >= 0) continue;
-      mesh.boundary_edges.push_back({new_index[raw.triangles[t][k]], new_index[raw.triangles[t][(k + 1) % 3]], -1});
+      mesh.boundary_edges.push_back(
+          {new_index[raw.triangles[t][k]], new_index[raw.triangles[t][(k + 1) % 3]], -1, new_triangle[t]});
     }
   }
   double extent = 0.0;

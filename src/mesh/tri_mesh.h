@@ -14,6 +14,7 @@ namespace edgeflux {
 struct BoundaryEdge {
   int a = 0, b = 0;   ///< node indices
   int surface = -1;   ///< index into CrossSection::surfaces, or -1 for adiabatic
+  int triangle = -1;  ///< the triangle this edge belongs to
 };
 
 struct TriMesh {

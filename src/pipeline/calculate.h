@@ -1,4 +1,5 @@
-// The whole calculation for one cross-section: mesh, solve, read off results.
+// The whole calculation for one cross-section: one mesh, the heat-loss run and the
+// surface-temperature run, and the junction's numbers read off both.
 #pragma once
 
 #include <functional>
@@ -7,6 +8,8 @@
 #include "geometry/cross_section.h"
 #include "mesh/mesh_cross_section.h"
 #include "results/field_results.h"
+#include "results/junction_results.h"
+#include "results/run.h"
 #include "solver/thermal_problem.h"
 
 namespace edgeflux {
@@ -20,22 +23,20 @@ struct CalculationOptions {
 
 struct Timings {
   double mesh_seconds = 0.0;
-  double solve_seconds = 0.0;  ///< assembly, factorisation and solves
+  double solve_seconds = 0.0;  ///< assembly, factorisation and solves of both runs
   double results_seconds = 0.0;
 };
 
-/// The heat-loss run: the surface resistances of the file.
 struct Calculation {
   TriMesh mesh;
-  ThermalProblem problem;
-  LoadCase load;
-  Solution solution;
-  FieldResults field;
+  Run heat_loss;            ///< the surface resistances of the file (ISO 6946)
+  Run surface_temperature;  ///< interior Rsi replaced (ISO 13788): 0.25 opaque, 0.13 glazing
+  JunctionResults junction;
   Timings timings;
 };
 
-/// Runs the heat-loss calculation. Throws InputError for problems in the section; a numerical
-/// failure is thrown as std::runtime_error with the solver's message.
+/// Runs both calculations. Throws InputError for problems in the section; a numerical failure is
+/// thrown as std::runtime_error with the solver's message.
 Calculation calculate(const CrossSection& section, const CalculationOptions& options);
 
 /// Conductivity per triangle from the material of each triangle.

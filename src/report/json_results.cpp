@@ -6,6 +6,9 @@ namespace {
 nlohmann::ordered_json located(const LocatedTemperature& t) {
   return {{"temperature_c", t.temperature}, {"x_m", t.at.x}, {"y_m", t.at.y}};
 }
+const char* system_key(DimensionSystem s) {
+  return s == DimensionSystem::internal ? "internal" : s == DimensionSystem::overall_internal ? "overall_internal" : "external";
+}
 }  // namespace
 
 nlohmann::ordered_json json_results(const CrossSection& section, const Calculation& calc) {
@@ -16,33 +19,74 @@ nlohmann::ordered_json json_results(const CrossSection& section, const Calculati
   j["title"] = section.title;
   j["input_file"] = section.file;
   auto& envs = j["environments"] = nlohmann::ordered_json::array();
-  for (const EnvironmentFlow& flow : calc.field.environments) {
+  for (const EnvironmentFlow& flow : calc.heat_loss.field.environments) {
     const Environment& e = section.environments[flow.environment];
     nlohmann::ordered_json entry{{"id", e.id}, {"temperature_c", e.temperature}, {"heat_flow_w_per_m", flow.heat_flow}};
     if (flow.coldest_surface) entry["coldest_surface"] = located(*flow.coldest_surface);
     if (flow.warmest_surface) entry["warmest_surface"] = located(*flow.warmest_surface);
     envs.push_back(entry);
   }
-  j["energy_balance"] = {{"net_heat_flow_w_per_m", calc.field.balance.net},
-                         {"relative", calc.field.balance.relative}};
+  j["energy_balance"] = {{"net_heat_flow_w_per_m", calc.heat_loss.field.balance.net},
+                         {"relative", calc.heat_loss.field.balance.relative}};
   j["coupling_coefficient_2d_w_per_mk"] =
-      calc.field.coupling_2d ? nlohmann::ordered_json(*calc.field.coupling_2d) : nlohmann::ordered_json();
-  // The minimum surface temperature over interior surfaces (all surfaces if none is interior).
-  std::optional<LocatedTemperature> coldest_interior;
-  for (const EnvironmentFlow& flow : calc.field.environments) {
-    const bool interior = section.environments[flow.environment].side == Side::interior;
-    if (interior && flow.coldest_surface &&
-        (!coldest_interior || flow.coldest_surface->temperature < coldest_interior->temperature))
-      coldest_interior = flow.coldest_surface;
+      calc.heat_loss.field.coupling_2d ? nlohmann::ordered_json(*calc.heat_loss.field.coupling_2d) : nlohmann::ordered_json();
+  const JunctionResults& junction = calc.junction;
+  auto& flanking = j["flanking_elements"] = nlohmann::ordered_json::array();
+  for (const FlankingResult& f : junction.flanking) {
+    nlohmann::ordered_json entry{{"id", f.id}, {"u_value_w_per_m2k", f.u_value}, {"u_value_stated", f.u_value_stated},
+                                 {"layer_stack_u_value_w_per_m2k", f.stack_u_value ? nlohmann::ordered_json(*f.stack_u_value) : nullptr},
+                                 {"surface_resistances_m2k_per_w", {f.start_resistance, f.end_resistance}}};
+    auto& layers = entry["layers"] = nlohmann::ordered_json::array();
+    for (const FlankingLayer& l : f.layers)
+      layers.push_back({{"material", l.material}, {"thickness_m", l.thickness}, {"conductivity_w_per_mk", l.conductivity}});
+    auto& lengths = entry["lengths_m"] = nlohmann::ordered_json::object();
+    for (DimensionSystem s : all_dimension_systems)
+      if (const auto& l = f.length[static_cast<int>(s)]) lengths[system_key(s)] = *l;
+    entry["deviation_from_1d_k"] = f.deviation_from_1d;
+    flanking.push_back(entry);
   }
-  j["min_interior_surface"] = coldest_interior ? located(*coldest_interior) : nlohmann::ordered_json();
+  auto& psi = j["psi_w_per_mk"] = nlohmann::ordered_json::object();
+  for (const PsiValue& p : junction.psi) psi[system_key(p.system)] = p.psi;
+  j["min_interior_surface"] = nullptr;
+  if (junction.min_interior_surface) {
+    const SurfaceMinimum& m = *junction.min_interior_surface;
+    j["min_interior_surface"] = {{"temperature_c", m.temperature}, {"x_m", m.at.x}, {"y_m", m.at.y},
+                                 {"surface", section.surfaces[m.surface].name}, {"run", "surface_temperature"}};
+  }
+  j["temperature_factor_frsi"] = junction.temperature_factor ? nlohmann::ordered_json(*junction.temperature_factor) : nullptr;
+  if (section.environments.size() > 2) {
+    j["coupling_matrix_w_per_mk"] = junction.coupling;
+    j["weighting_factors_g"] = junction.weighting_factors;
+  }
+  j["climate"] = nullptr;
+  if (junction.climate) {
+    const Climate& c = *junction.climate;
+    j["climate"] = {{"interior_temperature_c", c.interior_temperature},
+                    {"interior_relative_humidity", c.interior_relative_humidity ? nlohmann::ordered_json(*c.interior_relative_humidity) : nullptr},
+                    {"humidity_class", c.humidity_class ? nlohmann::ordered_json(*c.humidity_class) : nullptr},
+                    {"exterior_temperature_c", c.exterior_temperature}, {"rule", c.rule}, {"assumed", junction.climate_assumed}};
+  }
+  auto& moisture = j["moisture"] = nlohmann::ordered_json::array();
+  for (const MoistureResult& m : junction.moisture) {
+    const MoistureAssessment& a = m.assessment;
+    moisture.push_back({{"surfaces", m.kind == SurfaceKind::glazing ? "glazing" : "opaque"},
+                        {"min_surface_temperature_c", m.minimum.temperature}, {"x_m", m.minimum.at.x}, {"y_m", m.minimum.at.y},
+                        {"temperature_factor_frsi", m.temperature_factor},
+                        {"interior_vapour_pressure_pa", a.interior_vapour_pressure}, {"dew_point_c", a.dew_point},
+                        {"mould_min_surface_temperature_c", a.mould_surface_temperature},
+                        {"mould_frsi_min", a.mould_temperature_factor}, {"condensation_frsi_min", a.condensation_temperature_factor},
+                        {"required_frsi", a.required_temperature_factor}, {"governing_requirement", a.governing_requirement},
+                        {"passes", a.passes}, {"margin", a.margin}, {"verdict", a.verdict}});
+  }
+  j["warnings"] = junction.warnings;
+  j["cautions"] = junction.cautions;
   auto& probes = j["probes"] = nlohmann::ordered_json::array();
-  for (const ProbeReading& p : calc.field.probes)
+  for (const ProbeReading& p : calc.heat_loss.field.probes)
     probes.push_back({{"name", p.name}, {"x_m", p.at.x}, {"y_m", p.at.y}, {"temperature_c", p.temperature}});
   j["mesh"] = {{"mesher", calc.mesh.mesher}, {"nodes", calc.mesh.n_points()}, {"triangles", calc.mesh.n_triangles()}};
-  j["solver"] = {{"linear_solver", calc.solution.info.solver}, {"unknowns", calc.solution.info.n_unknowns}};
-  j["timings_s"] = {{"mesh", calc.timings.mesh_seconds}, {"assemble", calc.solution.info.assemble_seconds},
-                    {"factorize", calc.solution.info.factorize_seconds}, {"solve", calc.solution.info.solve_seconds}};
+  j["solver"] = {{"linear_solver", calc.heat_loss.info.solver}, {"unknowns", calc.heat_loss.info.n_unknowns}};
+  j["timings_s"] = {{"mesh", calc.timings.mesh_seconds}, {"assemble", calc.heat_loss.info.assemble_seconds},
+                    {"factorize", calc.heat_loss.info.factorize_seconds}, {"solve", calc.heat_loss.info.solve_seconds}};
   return j;
 }
 

@@ -3,45 +3,129 @@
 
 #include <fmt/format.h>
 
+#include <algorithm>
+
 namespace edgeflux {
 
 std::string summary_text(const CrossSection& section, const Calculation& calc) {
   const double unit = section.metres_per_unit;
-  auto at = [&](Point p) { return fmt::format("({:.6g}, {:.6g})", p.x / unit, p.y / unit); };
+  auto at = [&](Point p) { return fmt::format("({:.6g}, {:.6g}) {}", p.x / unit, p.y / unit, section.unit); };
+  const FieldResults& field = calc.heat_loss.field;
+  const JunctionResults& junction = calc.junction;
   std::string out;
   auto line = [&](const std::string& text) { out += text + "\n"; };
+  std::size_t id_width = 12;
+  for (const Environment& e : section.environments) id_width = std::max(id_width, e.id.size());
 
   line(fmt::format("edgeflux {} — {}", EDGEFLUX_VERSION, section.title.empty() ? section.file : section.title));
+  line(fmt::format("input: {}", section.file));
   line("");
-  line("Heat flow per environment (heat-loss run, positive into the section)");
-  line(fmt::format("  {:<16} {:>8} {:>12}   {:<28} {:<28}", "environment", "θ [°C]", "Φ [W/m]",
-                   fmt::format("coldest surface [°C] at ({})", section.unit),
-                   fmt::format("warmest surface [°C] at ({})", section.unit)));
-  for (const EnvironmentFlow& env : calc.field.environments) {
+  line("Heat-loss run (surface resistances as given; Φ positive into the section)");
+  line(fmt::format("  {:<{}} {:>8} {:>12}   {:<30} {}", "environment", id_width, "θ [°C]", "Φ [W/m]",
+                   "coldest surface [°C] at", "warmest surface [°C] at"));
+  for (const EnvironmentFlow& env : field.environments) {
     const Environment& e = section.environments[env.environment];
     auto extreme = [&](const std::optional<LocatedTemperature>& t) {
-      return t ? fmt::format("{:8.3f} {}", t->temperature, at(t->at)) : std::string("—");
+      return t ? fmt::format("{:7.3f} {}", t->temperature, at(t->at)) : std::string("—");
     };
-    line(fmt::format("  {:<16} {:>8.2f} {:>12.5f}   {:<28} {:<28}", e.id, e.temperature, env.heat_flow,
+    line(fmt::format("  {:<{}} {:>8.2f} {:>12.5f}   {:<30} {}", e.id, id_width, e.temperature, env.heat_flow,
                      extreme(env.coldest_surface), extreme(env.warmest_surface)));
   }
-  line(fmt::format("  energy balance: Σ Φ = {:.3e} W/m, ratio {:.2e} (ISO 10211 criterion < 1e-4: {})",
-                   calc.field.balance.net, calc.field.balance.relative,
-                   std::abs(calc.field.balance.relative) < 1e-4 ? "met" : "NOT MET"));
-  if (calc.field.coupling_2d)
-    line(fmt::format("  thermal coupling coefficient L2D = {:.5f} W/(m·K)", *calc.field.coupling_2d));
-  if (!calc.field.probes.empty()) {
+  line(fmt::format("  energy balance: Σ Φ = {:.2e} W/m, ratio {:.1e} (ISO 10211 criterion < 1e-4: {})", field.balance.net,
+                   field.balance.relative, std::abs(field.balance.relative) < 1e-4 ? "met" : "NOT MET"));
+  if (field.coupling_2d) line(fmt::format("  thermal coupling coefficient L2D = {:.5f} W/(m·K)", *field.coupling_2d));
+
+  if (!junction.flanking.empty()) {
     line("");
-    line(fmt::format("Probe temperatures"));
-    for (const ProbeReading& p : calc.field.probes)
-      line(fmt::format("  {:<16} {:>9.3f} °C  at {} {}", p.name, p.temperature, at(p.at), section.unit));
+    line("Flanking elements (U from the layer stack at the cut-off plane unless stated; lengths in m)");
+    line(fmt::format("  {:<18} {:>11} {:>9} {:>9} {:>9}   {}", "element", "U [W/m²K]", "internal", "ov. int.", "external", "layer stack at the cut-off"));
+    for (const FlankingResult& f : junction.flanking) {
+      auto length = [&](int s) { return f.length[s] ? fmt::format("{:9.3f}", *f.length[s]) : fmt::format("{:>9}", "—"); };
+      std::string stack = fmt::format("Rs {:.2f}", f.start_resistance);
+      for (const FlankingLayer& l : f.layers) stack += fmt::format(" | {} {:.0f} mm", l.material, l.thickness * 1000);
+      stack += fmt::format(" | Rs {:.2f}", f.end_resistance);
+      line(fmt::format("  {:<18} {:>9.4f}{} {} {} {}   {}", f.id, f.u_value, f.u_value_stated ? " *" : "  ", length(0), length(1),
+                       length(2), stack));
+    }
+    if (std::any_of(junction.flanking.begin(), junction.flanking.end(), [](const FlankingResult& f) { return f.u_value_stated; }))
+      line("  * U stated in the detail file");
+  }
+  if (!junction.psi.empty()) {
+    line("");
+    line("Linear thermal transmittance ψ = L2D − Σ U·l");
+    for (const PsiValue& p : junction.psi)
+      line(fmt::format("  {:<26} ψ = {:+.4f} W/(m·K)", fmt::format("{} dimensions:", dimension_system_name(p.system)), p.psi));
+  }
+
+  line("");
+  line("Surface-temperature run (interior Rsi 0.25 m²K/W on opaque surfaces, 0.13 on glazing; ISO 13788)");
+  if (junction.min_interior_surface) {
+    const SurfaceMinimum& m = *junction.min_interior_surface;
+    line(fmt::format("  θsi,min = {:.2f} °C at {} on surface '{}'", m.temperature, at(m.at), section.surfaces[m.surface].name));
+  } else {
+    line("  no interior surface (mark the room environment side=\"interior\" to get θsi,min and fRsi)");
+  }
+  if (junction.temperature_factor) line(fmt::format("  fRsi = {:.3f}", *junction.temperature_factor));
+
+  if (section.environments.size() > 2) {
+    line("");
+    line("Coupling matrix ∂Φi/∂θj [W/(m·K)] (heat-loss run; Lij = −entry for i ≠ j; rows sum to zero)");
+    std::string head = fmt::format("  {:<{}}", "", id_width);
+    for (const Environment& e : section.environments) head += fmt::format(" {:>{}}", e.id, std::max<std::size_t>(id_width, 10));
+    line(head);
+    for (std::size_t i = 0; i < section.environments.size(); ++i) {
+      std::string row = fmt::format("  {:<{}}", section.environments[i].id, id_width);
+      for (double v : junction.coupling[i]) row += fmt::format(" {:>{}.5f}", v, std::max<std::size_t>(id_width, 10));
+      line(row);
+    }
+    if (!junction.weighting_factors.empty()) {
+      std::string g = "  temperature weighting factors at θsi,min:";
+      for (std::size_t j = 0; j < junction.weighting_factors.size(); ++j)
+        g += fmt::format("  g[{}] = {:.4f}", section.environments[j].id, junction.weighting_factors[j]);
+      line(g);
+    }
+  }
+
+  if (junction.climate) {
+    const Climate& c = *junction.climate;
+    line("");
+    line(fmt::format("Condensation and mould (ISO 13788){}", junction.climate_assumed ? " — climate ASSUMED, none given in the file" : ""));
+    line(fmt::format("  climate: interior {:.1f} °C, {}, exterior {:.1f} °C; rule: {}", c.interior_temperature,
+                     c.interior_relative_humidity ? fmt::format("{:.0f} % RH", 100 * *c.interior_relative_humidity)
+                                                  : fmt::format("humidity class {}", *c.humidity_class),
+                     c.exterior_temperature, c.rule));
+    for (const MoistureResult& m : junction.moisture) {
+      const MoistureAssessment& a = m.assessment;
+      line(fmt::format("  {} surfaces: pi = {:.0f} Pa, dew point {:.2f} °C, θsi,min for mould {:.2f} °C", 
+                       m.kind == SurfaceKind::glazing ? "glazing/frame" : "opaque", a.interior_vapour_pressure, a.dew_point,
+                       a.mould_surface_temperature));
+      line(fmt::format("    fRsi,min: mould {:.3f}, condensation {:.3f}; required {:.3f} ({})", a.mould_temperature_factor,
+                       a.condensation_temperature_factor, a.required_temperature_factor, a.governing_requirement));
+      line(fmt::format("    fRsi = {:.3f}, margin {:+.3f}: {}", a.actual_temperature_factor, a.margin, a.verdict));
+    }
+  }
+
+  if (!field.probes.empty()) {
+    line("");
+    line("Probe temperatures (heat-loss run)");
+    std::size_t w = 8;
+    for (const ProbeReading& p : field.probes) w = std::max(w, p.name.size());
+    for (const ProbeReading& p : field.probes) line(fmt::format("  {:<{}} {:>9.3f} °C  at {}", p.name, w, p.temperature, at(p.at)));
+  }
+  if (!junction.warnings.empty()) {
+    line("");
+    line("WARNINGS");
+    for (const std::string& w : junction.warnings) line("  ! " + w);
   }
   line("");
-  const SolveInfo& info = calc.solution.info;
-  line(fmt::format("Mesh: {} nodes, {} triangles ({} mesher); solver: {}", calc.mesh.n_points(),
-                   calc.mesh.n_triangles(), calc.mesh.mesher, info.solver));
-  line(fmt::format("Time: mesh {:.3f} s, assembly {:.3f} s, factorisation {:.3f} s, solve {:.3f} s",
-                   calc.timings.mesh_seconds, info.assemble_seconds, info.factorize_seconds, info.solve_seconds));
+  line("Cautions");
+  for (const std::string& c : junction.cautions) line("  - " + c);
+  line("");
+  const SolveInfo& info = calc.heat_loss.info;
+  line(fmt::format("Mesh: {} nodes, {} triangles ({} mesher); solver: {}", calc.mesh.n_points(), calc.mesh.n_triangles(),
+                   calc.mesh.mesher, info.solver));
+  line(fmt::format("Time: mesh {:.3f} s, solve (both runs) {:.3f} s, results {:.3f} s", calc.timings.mesh_seconds,
+                   calc.timings.solve_seconds, calc.timings.results_seconds));
   return out;
 }
 

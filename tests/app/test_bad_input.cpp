@@ -113,6 +113,24 @@ TEST_CASE("bad input: one clear message, exit code 2, no output file") {
        {":12:", "environment 'in'", "only environment", "at least two environments"}},
       {"no temperature difference", replace(good, "temperature=\"-5\"", "temperature=\"20\""),
        {"all surfaces face environments at 20 °C", "different temperatures"}},
+      {"cut-off crossing no material", replace(good, "</boundaries>", "</boundaries><flanking-elements>"
+                                              "<element id=\"wall\" cut-off=\"0,2000 300,2000\" length-internal=\"1000\"/></flanking-elements>"),
+       {":18:", "flanking element 'wall'", "crosses no material", "(0, 2000) mm"}},
+      {"cut-off along a surface", replace(good, "</boundaries>", "</boundaries><flanking-elements>"
+                                          "<element id=\"wall\" cut-off=\"0,0 0,1000\" length-internal=\"1000\"/></flanking-elements>"),
+       {":18:", "flanking element 'wall'", "not adiabatic", "inner face"}},
+      {"cut-off not a straight boundary edge", replace(good, "</boundaries>", "</boundaries><flanking-elements>"
+                                          "<element id=\"wall\" cut-off=\"0,0 400,0\" length-internal=\"1000\"/></flanking-elements>"),
+       {":18:", "not a straight boundary edge", "(400, 0) mm"}},
+      {"length missing for a requested system", replace(good, "</boundaries>", "</boundaries><flanking-elements dimension-systems=\"external\">"
+                                          "<element id=\"wall\" cut-off=\"0,0 300,0\" length-internal=\"1000\"/></flanking-elements>"),
+       {":18:", "flanking element 'wall'", "no external length", "length-external"}},
+      {"relative humidity above 100 %", replace(good, "</boundaries>", "</boundaries><climate interior-temperature=\"20\" "
+                                          "interior-humidity=\"120\" exterior-temperature=\"-5\"/>"),
+       {":18:", "<climate>", "120 % is outside 0–100 %"}},
+      {"climate with equal temperatures", replace(good, "</boundaries>", "</boundaries><climate interior-temperature=\"20\" "
+                                          "interior-humidity=\"50\" exterior-temperature=\"20\"/>"),
+       {":18:", "<climate>", "temperatures are equal"}},
   };
   const fs::path folder = scratch_folder();
   for (const BadCase& c : cases) {

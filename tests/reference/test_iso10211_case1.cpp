@@ -37,7 +37,7 @@ TEST_CASE("ISO 10211 Case 1: 28 points within 0.1 K of the table and 0.01 K of t
                               {2.0, 3.6, 4.7, 5.0},    {1.3, 2.3, 3.0, 3.2},   {0.7, 1.4, 1.8, 1.9},
                               {0.3, 0.6, 0.8, 0.9}};
   const Calculation calc = test::solve_file("tests/reference/iso10211_case1.xml");
-  REQUIRE(calc.field.probes.size() == 28);
+  REQUIRE(calc.heat_loss.field.probes.size() == 28);
   double worst_series = 0.0, worst_table = 0.0;
   for (int row = 1; row <= 7; ++row) {
     for (int col = 1; col <= 4; ++col) {

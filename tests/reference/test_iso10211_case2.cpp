@@ -24,16 +24,16 @@ void check_case2(const Calculation& calc, double point_tolerance_to_converged) {
     CHECK(std::abs(t - p.standard) <= 0.1);
     CHECK(std::abs(t - p.converged) <= point_tolerance_to_converged);
   }
-  const double flow = calc.field.environments[0].heat_flow;
+  const double flow = calc.heat_loss.field.environments[0].heat_flow;
   CHECK(std::abs(flow - standard_heat_flow) <= 0.1);
-  CHECK(std::abs(calc.field.balance.relative) < 1e-9);
+  CHECK(std::abs(calc.heat_loss.field.balance.relative) < 1e-9);
 }
 }  // namespace
 
 TEST_CASE("ISO 10211 Case 2 at default settings: standard's tolerances and 0.1 % of the converged flow") {
   const Calculation calc = test::solve_file("tests/reference/iso10211_case2.xml");
   check_case2(calc, 0.05);
-  const double flow = calc.field.environments[0].heat_flow;
+  const double flow = calc.heat_loss.field.environments[0].heat_flow;
   MESSAGE("Case 2 default: Φ = ", flow, " W/m with ", calc.mesh.n_points(), " nodes (", calc.mesh.mesher, ")");
   CHECK(std::abs(flow - converged_heat_flow) <= 1e-3 * converged_heat_flow);
 }
@@ -49,7 +49,7 @@ TEST_CASE("ISO 10211 Case 2 with both meshers: the flow error falls with every d
       CAPTURE(calc.mesh.mesher);
       CAPTURE(density);
       check_case2(calc, 0.05);
-      const double error = std::abs(calc.field.environments[0].heat_flow - converged_heat_flow);
+      const double error = std::abs(calc.heat_loss.field.environments[0].heat_flow - converged_heat_flow);
       CHECK(error < previous_error);
       previous_error = error;
     }

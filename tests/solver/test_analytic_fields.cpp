@@ -58,10 +58,10 @@ TEST_CASE("layered wall: Φ = ΔT/(Rsi + Σd/λ + Rse) to 1e-6 and temperatures 
     options.mesher = mesher;
     const Calculation calc = calculate(parse_detail_text(layered_wall, "layered_wall.xml"), options);
     CAPTURE(calc.mesh.mesher);
-    CHECK(calc.field.environments[0].heat_flow == doctest::Approx(q).epsilon(1e-6));
-    CHECK(calc.field.environments[1].heat_flow == doctest::Approx(-q).epsilon(1e-6));
-    CHECK(*calc.field.coupling_2d == doctest::Approx(1.0 / total_resistance).epsilon(1e-6));
-    for (const ProbeReading& p : calc.field.probes) {
+    CHECK(calc.heat_loss.field.environments[0].heat_flow == doctest::Approx(q).epsilon(1e-6));
+    CHECK(calc.heat_loss.field.environments[1].heat_flow == doctest::Approx(-q).epsilon(1e-6));
+    CHECK(*calc.heat_loss.field.coupling_2d == doctest::Approx(1.0 / total_resistance).epsilon(1e-6));
+    for (const ProbeReading& p : calc.heat_loss.field.probes) {
       CAPTURE(p.name);
       CHECK(p.temperature == doctest::Approx(analytic_wall_temperature(p.at.x * 1000.0, q)).epsilon(1e-8));
     }
@@ -90,11 +90,11 @@ TEST_CASE("a linear field is reproduced exactly on an unstructured mesh, and the
   const Calculation calc = calculate(parse_detail_text(text, "linear.xml"), options);
   double worst = 0.0;
   for (int i = 0; i < calc.mesh.n_points(); ++i)
-    worst = std::max(worst, std::abs(calc.solution.temperature[0][i] - 10.0 * calc.mesh.points[i].x / 0.4));
+    worst = std::max(worst, std::abs(calc.heat_loss.temperature[i] - 10.0 * calc.mesh.points[i].x / 0.4));
   CHECK(worst < 1e-10);
   // Exact flow: λ ΔT h / L = 1.7 · 10 · 0.4 / 0.4 W/m (Fourier's law, common practice).
-  CHECK(calc.field.environments[1].heat_flow == doctest::Approx(17.0).epsilon(1e-9));
-  CHECK(std::abs(calc.field.balance.relative) < 1e-9);
+  CHECK(calc.heat_loss.field.environments[1].heat_flow == doctest::Approx(17.0).epsilon(1e-9));
+  CHECK(std::abs(calc.heat_loss.field.balance.relative) < 1e-9);
 }
 
 TEST_CASE("the same input gives identical meshes and temperatures twice") {
@@ -108,7 +108,7 @@ TEST_CASE("the same input gives identical meshes and temperatures twice") {
     bool same = true;
     for (int i = 0; i < a.mesh.n_points(); ++i)
       same = same && a.mesh.points[i].x == b.mesh.points[i].x && a.mesh.points[i].y == b.mesh.points[i].y &&
-             a.solution.temperature[0][i] == b.solution.temperature[0][i];
+             a.heat_loss.temperature[i] == b.heat_loss.temperature[i];
     for (int t = 0; t < a.mesh.n_triangles(); ++t) same = same && a.mesh.triangles[t] == b.mesh.triangles[t];
     CHECK(same);
   }
@@ -123,8 +123,8 @@ TEST_CASE("the three linear solvers agree to 1e-8 K") {
     const Calculation other = calculate(section, options);
     double worst = 0.0;
     for (int i = 0; i < reference.mesh.n_points(); ++i)
-      worst = std::max(worst, std::abs(reference.solution.temperature[0][i] - other.solution.temperature[0][i]));
-    CAPTURE(other.solution.info.solver);
+      worst = std::max(worst, std::abs(reference.heat_loss.temperature[i] - other.heat_loss.temperature[i]));
+    CAPTURE(other.heat_loss.info.solver);
     CHECK(worst < 1e-8);
   }
 }
