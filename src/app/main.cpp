@@ -12,6 +12,7 @@
 #include "input/read_detail_file.h"
 #include "pipeline/calculate.h"
 #include "report/json_results.h"
+#include "report/output_files.h"
 #include "report/summary_text.h"
 
 namespace {
@@ -25,6 +26,7 @@ struct SolveArgs {
   std::string mesher;
   std::string solver = "cholesky";
   bool quiet = false;
+  OutputRequest outputs;  ///< --report, --svg-dir, --png-dir, --vtu, --surface-csv
 };
 
 int run_solve(const SolveArgs& args) {
@@ -40,13 +42,13 @@ int run_solve(const SolveArgs& args) {
 
   const Calculation calc = calculate(section, options);
   // Every output is built in memory first, so a failure leaves no file behind.
-  std::string json;
-  if (!args.json_file.empty()) json = json_results(section, calc).dump(2) + "\n";
+  std::vector<OutputFile> files;
+  if (!args.json_file.empty()) files.push_back({args.json_file, json_results(section, calc).dump(2) + "\n"});
+  for (OutputFile& f : build_output_files(section, calc, args.outputs)) files.push_back(std::move(f));
+  check_output_paths(files);  // every path is checked before the first file is written
   fmt::print("{}", summary_text(section, calc));
-  if (!args.json_file.empty()) {
-    write_file_atomically(args.json_file, json);
-    fmt::print("Results written to {}\n", args.json_file);
-  }
+  write_output_files(files);
+  for (const OutputFile& f : files) fmt::print("Written: {}\n", f.path);
   return 0;
 }
 
@@ -69,6 +71,11 @@ int main(int argc, char** argv) {
   solve_cmd->add_option("--solver", solve.solver, "Linear solver: cholesky (default), ldlt or cg")
       ->check(CLI::IsMember({"cholesky", "ldlt", "cg"}));
   solve_cmd->add_flag("-q,--quiet", solve.quiet, "Do not print progress");
+  solve_cmd->add_option("--report", solve.outputs.html_report, "Write the HTML report (self-contained, prints to A4) to this file");
+  solve_cmd->add_option("--svg-dir", solve.outputs.svg_folder, "Write the report drawings as SVG files into this folder");
+  solve_cmd->add_option("--png-dir", solve.outputs.png_folder, "Write the report drawings as PNG files into this folder");
+  solve_cmd->add_option("--vtu", solve.outputs.vtu_file, "Write mesh, temperatures and heat flux as VTK XML (.vtu) to this file");
+  solve_cmd->add_option("--surface-csv", solve.outputs.surface_csv, "Write interior surface temperatures along the surface as CSV to this file");
 
   try {
     app.parse(argc, argv);

@@ -1,0 +1,30 @@
+// The report a consultant hands in: one self-contained HTML file (inline SVG and CSS, nothing
+// fetched, no scripts) that prints to A4.
+#pragma once
+
+#include <string>
+#include <vector>
+
+#include "geometry/cross_section.h"
+#include "pipeline/calculate.h"
+#include "report/svg_drawings.h"
+
+namespace edgeflux {
+
+/// What the report says about where it came from.
+struct ReportProvenance {
+  std::string input_text;  ///< the bytes of the detail file, embedded and hashed (SHA-256)
+  std::string generated;   ///< date and time of the run as shown, e.g. "2025-03-01 14:05 UTC"
+};
+
+/// The date and time now in UTC as "YYYY-MM-DD HH:MM UTC"; SOURCE_DATE_EPOCH (seconds since
+/// 1970, the reproducible-builds convention) replaces "now" when it is set.
+std::string report_timestamp();
+
+/// The report: summary with ψ, L2D, θsi,min, fRsi, verdict and cautions; the drawings; tables of
+/// materials, environments and surfaces, flanking elements, heat flows, coupling (more than two
+/// environments), probes, mesh and solver; method and validation; provenance with the input file.
+std::string html_report(const CrossSection& section, const Calculation& calc, const std::vector<Drawing>& drawings,
+                        const ReportProvenance& provenance);
+
+}  // namespace edgeflux
