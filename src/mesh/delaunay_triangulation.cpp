@@ -11,9 +11,12 @@
 #include <CGAL/Triangulation_vertex_base_with_info_2.h>
 
 #include <algorithm>
+#include <unordered_map>
 #include <cmath>
 
 #include "geometry/cross_section.h"
+#include "geometry/polygon.h"
+#include "geometry/segment_arrangement.h"
 #include "mesh/mesh_cross_section.h"
 #include "mesh/raw_triangulation.h"
 
@@ -27,18 +30,38 @@ using FaceBase = CGAL::Triangulation_face_base_with_info_2<int, Kernel, CGAL::De
 using Tds = CGAL::Triangulation_data_structure_2<VertexBase, FaceBase>;
 // Exact_predicates_tag lets region edges cross: the crossing points become vertices.
 using Cdt = CGAL::Constrained_Delaunay_triangulation_2<Kernel, Tds, CGAL::Exact_predicates_tag>;
+using edgeflux::Segment;
 using CgalPoint = Cdt::Point;
 
-/// Size field: each feature seed asks for its own size, growing linearly away from it.
-struct SizeField {
-  std::vector<SizeSeed> seeds;
-  double max_size = 0.0;
-  double grading = 0.3;
+/// Size field: each feature seed asks for its own size, growing linearly away from it, capped at
+/// max_size. A seed only matters within (max_size − size)/grading of itself, so seeds are kept in
+/// buckets of that width and a query looks at the 3 × 3 buckets around it.
+class SizeField {
+ public:
+  SizeField(std::vector<SizeSeed> seeds, double max_size, double grading, double x0, double y0)
+      : max_size_(max_size), grading_(grading), x0_(x0), y0_(y0), width_(max_size / grading) {
+    for (const SizeSeed& s : seeds) {
+      if (s.size >= max_size) continue;
+      buckets_[key(cell(s.at.x, x0_), cell(s.at.y, y0_))].push_back(s);
+    }
+  }
   double operator()(double x, double y) const {
-    double h = max_size;
-    for (const SizeSeed& s : seeds) h = std::min(h, s.size + grading * std::hypot(x - s.at.x, y - s.at.y));
+    double h = max_size_;
+    const long long cx = cell(x, x0_), cy = cell(y, y0_);
+    for (long long i = cx - 1; i <= cx + 1; ++i)
+      for (long long j = cy - 1; j <= cy + 1; ++j) {
+        const auto it = buckets_.find(key(i, j));
+        if (it == buckets_.end()) continue;
+        for (const SizeSeed& s : it->second) h = std::min(h, s.size + grading_ * std::hypot(x - s.at.x, y - s.at.y));
+      }
     return h;
   }
+
+ private:
+  long long cell(double v, double origin) const { return static_cast<long long>(std::floor((v - origin) / width_)); }
+  static long long key(long long i, long long j) { return (i << 32) ^ (j & 0xffffffffLL); }
+  double max_size_, grading_, x0_, y0_, width_;
+  std::unordered_map<long long, std::vector<SizeSeed>> buckets_;
 };
 
 /// Minimum-angle bound plus a size bound that varies in space (the longest edge of a face must
@@ -89,40 +112,87 @@ class GradedCriteria : public virtual CGAL::Delaunay_mesh_criteria_2<Cdt> {
   const SizeField* field_;
 };
 
-}  // namespace
-
-RawTriangulation delaunay_triangulation(const CrossSection& section, const MeshOptions& options) {
-  Cdt cdt;
-  double x_min = 1e300, x_max = -1e300, y_min = 1e300, y_max = -1e300;
-  auto to_cgal = [&](Point p) {
-    x_min = std::min(x_min, p.x), x_max = std::max(x_max, p.x);
-    y_min = std::min(y_min, p.y), y_max = std::max(y_max, p.y);
-    return CgalPoint(p.x, p.y);
-  };
-  for (const Region& region : section.regions) {
-    const std::size_t n = region.outline.size();
-    for (std::size_t i = 0; i < n; ++i)
-      cdt.insert_constraint(to_cgal(region.outline[i]), to_cgal(region.outline[(i + 1) % n]));
-  }
+/// Inserts the region edges, split where they cross or overlap (so no two constraints cross and
+/// the triangulation never has to construct an intersection point), and the surface end points.
+void insert_section(const CrossSection& section, const std::vector<Segment>& arrangement, Cdt& cdt) {
+  for (const Segment& s : arrangement) cdt.insert_constraint(CgalPoint(s.a.x, s.a.y), CgalPoint(s.b.x, s.b.y));
   // Surface end points become vertices so each boundary edge belongs to one surface only.
   for (const Surface& surface : section.surfaces)
-    for (Point p : surface.path) cdt.insert(to_cgal(p));
+    for (Point p : surface.path) cdt.insert(CgalPoint(p.x, p.y));
+}
 
-  SizeField field;
-  field.seeds = feature_sizes(section, options.density);
-  field.max_size = std::max(x_max - x_min, y_max - y_min) / (50.0 * options.density);
-  field.grading = 0.3 / std::sqrt(options.density);
+double section_extent(const CrossSection& section) {
+  double x_min = 1e300, x_max = -1e300, y_min = 1e300, y_max = -1e300;
+  for (const Region& region : section.regions)
+    for (Point p : region.outline) {
+      x_min = std::min(x_min, p.x), x_max = std::max(x_max, p.x);
+      y_min = std::min(y_min, p.y), y_max = std::max(y_max, p.y);
+    }
+  return std::max(x_max - x_min, y_max - y_min);
+}
 
-  // Mesh only faces painted by some region: seeds at the centroids of covered faces.
+std::vector<Segment> arranged_segments(const CrossSection& section) {
+  return segment_arrangement(region_segments(section), 1e-9 * section_extent(section));
+}
+
+/// Points inside covered areas, to tell the mesher which faces to refine (cheap on the
+/// constraints-only triangulation, which has few faces).
+std::vector<CgalPoint> domain_seeds(const CrossSection& section, const Cdt& cdt) {
   std::vector<CgalPoint> seeds;
   for (auto f = cdt.finite_faces_begin(); f != cdt.finite_faces_end(); ++f) {
     const CgalPoint c = CGAL::centroid(f->vertex(0)->point(), f->vertex(1)->point(), f->vertex(2)->point());
     if (painting_region(section, {c.x(), c.y()}) >= 0) seeds.push_back(c);
   }
+  return seeds;
+}
+
+RawTriangulation painted_triangulation(const CrossSection& section, Cdt& cdt);
+
+}  // namespace
+
+RawTriangulation delaunay_through_points(const CrossSection& section, const std::vector<Point>& points) {
+  Cdt cdt;
+  const std::vector<Segment> arrangement = arranged_segments(section);
+  insert_section(section, arrangement, cdt);
+  const std::vector<CgalPoint> seeds = domain_seeds(section, cdt);
+  // Points on (or within rounding of) a constraint are left out: a point a hair off a constrained
+  // edge would leave a sliver the refinement cannot remove. The angle-bound refinement splits
+  // those edges again where interior points crowd them.
+  const double tolerance = 1e-9 * section_extent(section);
+  std::vector<CgalPoint> inside;
+  inside.reserve(points.size());
+  for (Point p : points) {
+    bool near_constraint = false;
+    for (const Segment& s : arrangement)
+      if (distance_to_segment(p, s.a, s.b) <= tolerance) { near_constraint = true; break; }
+    if (!near_constraint) inside.emplace_back(p.x, p.y);
+  }
+  cdt.insert(inside.begin(), inside.end());
+  CGAL::refine_Delaunay_mesh_2(cdt, seeds.begin(), seeds.end(), CGAL::Delaunay_mesh_criteria_2<Cdt>(0.125), true);
+  return painted_triangulation(section, cdt);
+}
+
+RawTriangulation delaunay_triangulation(const CrossSection& section, const MeshOptions& options) {
+  Cdt cdt;
+  insert_section(section, arranged_segments(section), cdt);
+  double x_min = 1e300, y_min = 1e300;
+  for (const Region& region : section.regions)
+    for (Point p : region.outline) x_min = std::min(x_min, p.x), y_min = std::min(y_min, p.y);
+  const SizeField field(feature_sizes(section, options.density),
+                        section_extent(section) / (50.0 * options.density),
+                        0.3 / std::sqrt(options.density), x_min, y_min);
+  // Mesh only faces painted by some region.
+  const std::vector<CgalPoint> seeds = domain_seeds(section, cdt);
   // Shape bound 0.125 is a minimum angle of about 20.7°, which the refinement always reaches.
   GradedCriteria criteria(0.125, &field);
   CGAL::refine_Delaunay_mesh_2(cdt, seeds.begin(), seeds.end(), criteria, true);
 
+  return painted_triangulation(section, cdt);
+}
+
+namespace {
+
+RawTriangulation painted_triangulation(const CrossSection& section, Cdt& cdt) {
   RawTriangulation raw;
   raw.points.reserve(cdt.number_of_vertices());
   for (auto v = cdt.finite_vertices_begin(); v != cdt.finite_vertices_end(); ++v) {
@@ -157,4 +227,5 @@ RawTriangulation delaunay_triangulation(const CrossSection& section, const MeshO
   return raw;
 }
 
+}  // namespace
 }  // namespace edgeflux

@@ -141,22 +141,15 @@ bool is_rectilinear(const CrossSection& section) {
   return true;
 }
 
-TriMesh mesh_cross_section(const CrossSection& section, const MeshOptions& options) {
-  using Mesher = MeshSettings::Mesher;
-  // Measured on ISO 10211 Case 2 (docs/method.md): the graded Delaunay mesh reaches a given
-  // heat-flow error with fewer nodes than the tensor grid, whose refinement near a corner runs
-  // along whole grid lines, so automatic means Delaunay; the grid stays available on request.
-  const bool use_grid = options.mesher == Mesher::grid;
-  if (options.mesher == Mesher::grid && !is_rectilinear(section))
-    throw_input_error({section.file, 0}, "mesh", "the grid mesher needs every region edge and surface "
-                      "parallel to an axis", "use mesher=\"delaunay\" or \"automatic\"");
-  const RawTriangulation raw = use_grid ? grid_triangulation(section, options)
-                                        : delaunay_triangulation(section, options);
+namespace {
+
+/// The finishing step shared by all meshers: gaps, compaction, boundary edges, surface tags.
+TriMesh finish_mesh(const CrossSection& section, const RawTriangulation& raw, const std::string& mesher) {
   const auto neighbours = triangle_neighbours(raw.triangles);
   reject_enclosed_gaps(section, raw, neighbours);
 
   TriMesh mesh;
-  mesh.mesher = use_grid ? "grid" : "delaunay";
+  mesh.mesher = mesher;
   std::vector<int> new_index(raw.points.size(), -1);
   std::vector<int> new_triangle(raw.triangles.size(), -1);
   for (int t = 0; t < static_cast<int>(raw.triangles.size()); ++t) {
@@ -190,6 +183,79 @@ TriMesh mesh_cross_section(const CrossSection& section, const MeshOptions& optio
   for (Point p : mesh.points) extent = std::max({extent, std::abs(p.x), std::abs(p.y)});
   tag_surfaces(section, mesh, 1e-9 * std::max(extent, 1e-3));
   return mesh;
+}
+
+/// Node index of the midpoint of edge (a, b), created on first request.
+int midpoint_node(std::unordered_map<EdgeKey, int, EdgeKeyHash>& midpoints, std::vector<Point>& points, int a, int b) {
+  const EdgeKey key{std::min(a, b), std::max(a, b)};
+  auto [it, inserted] = midpoints.try_emplace(key, static_cast<int>(points.size()));
+  if (inserted) points.push_back(0.5 * (points[a] + points[b]));
+  return it->second;
+}
+
+}  // namespace
+
+TriMesh mesh_cross_section(const CrossSection& section, const MeshOptions& options) {
+  using Mesher = MeshSettings::Mesher;
+  if (options.mesher == Mesher::grid && !is_rectilinear(section))
+    throw_input_error({section.file, 0}, "mesh", "the grid mesher needs every region edge and surface "
+                      "parallel to an axis", "use mesher=\"delaunay\" or \"automatic\"");
+  // Measured on ISO 10211 Case 2 (docs/method.md): the graded Delaunay mesh reaches a given
+  // heat-flow error with fewer nodes than the tensor grid, whose refinement near a corner runs
+  // along whole grid lines, so automatic means Delaunay; the grid stays available on request.
+  if (options.mesher == Mesher::grid) return finish_mesh(section, grid_triangulation(section, options), "grid");
+  // Very fine meshes: Delaunay refinement costs tens of µs per node, uniform subdivision a fraction
+  // of that with the same grading and angles, so fine densities mesh at most at density 4 and
+  // subdivide (each subdivision doubles the elements along every length).
+  MeshOptions coarse = options;
+  int subdivisions = 0;
+  while (coarse.density > 4.0) coarse.density /= 2.0, ++subdivisions;
+  TriMesh mesh = finish_mesh(section, delaunay_triangulation(section, coarse), "delaunay");
+  for (int k = 0; k < subdivisions; ++k) mesh = subdivide_mesh(mesh);
+  return mesh;
+}
+
+TriMesh refine_mesh(const CrossSection& section, const TriMesh& previous, const std::vector<char>& marked) {
+  std::vector<Point> points = previous.points;
+  std::unordered_map<EdgeKey, int, EdgeKeyHash> midpoints;
+  for (int t = 0; t < previous.n_triangles(); ++t) {
+    if (!marked[t]) continue;
+    const auto& tri = previous.triangles[t];
+    for (int k = 0; k < 3; ++k) midpoint_node(midpoints, points, tri[k], tri[(k + 1) % 3]);
+  }
+  return finish_mesh(section, delaunay_through_points(section, points), previous.mesher);
+}
+
+TriMesh subdivide_mesh(const TriMesh& mesh) {
+  TriMesh fine;
+  fine.mesher = mesh.mesher;
+  fine.points = mesh.points;
+  std::unordered_map<EdgeKey, int, EdgeKeyHash> midpoints;
+  midpoints.reserve(3 * mesh.triangles.size());
+  fine.triangles.reserve(4 * mesh.triangles.size());
+  for (int t = 0; t < mesh.n_triangles(); ++t) {
+    const auto [a, b, c] = mesh.triangles[t];
+    const int ab = midpoint_node(midpoints, fine.points, a, b), bc = midpoint_node(midpoints, fine.points, b, c),
+              ca = midpoint_node(midpoints, fine.points, c, a);
+    for (const std::array<int, 3>& child : {std::array<int, 3>{a, ab, ca}, {ab, b, bc}, {ca, bc, c}, {ab, bc, ca}}) {
+      fine.triangles.push_back(child);
+      fine.triangle_region.push_back(mesh.triangle_region[t]);
+      fine.triangle_material.push_back(mesh.triangle_material[t]);
+    }
+  }
+  // A boundary edge a→b of triangle t splits into a→m and m→b, owned by the children at a and b.
+  for (const BoundaryEdge& e : mesh.boundary_edges) {
+    const int m = midpoints.at({std::min(e.a, e.b), std::max(e.a, e.b)});
+    const auto& tri = mesh.triangles[e.triangle];
+    auto child_at = [&](int node) {
+      for (int k = 0; k < 3; ++k)
+        if (tri[k] == node) return 4 * e.triangle + k;
+      return -1;
+    };
+    fine.boundary_edges.push_back({e.a, m, e.surface, child_at(e.a)});
+    fine.boundary_edges.push_back({m, e.b, e.surface, child_at(e.b)});
+  }
+  return fine;
 }
 
 }  // namespace edgeflux

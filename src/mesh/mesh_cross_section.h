@@ -16,6 +16,15 @@ struct MeshOptions {
 /// Deterministic: the same section and options give the same mesh.
 TriMesh mesh_cross_section(const CrossSection& section, const MeshOptions& options);
 
+/// A finer mesh of the same section: every edge of a marked triangle is halved (its midpoint
+/// becomes a node), then the triangulation is rebuilt through all nodes and repaired for shape.
+/// `marked` has one entry per triangle of `previous`. Delaunay meshes only.
+TriMesh refine_mesh(const CrossSection& section, const TriMesh& previous, const std::vector<char>& marked);
+
+/// Uniform refinement: every triangle split into four through its edge midpoints. Keeps angles,
+/// grading, regions and surface tags; O(n), for very fine meshes.
+TriMesh subdivide_mesh(const TriMesh& mesh);
+
 /// True when every region edge and surface segment is parallel to an axis, so the structured
 /// right-triangle grid (the five-point finite-difference stencil) can represent the section exactly.
 bool is_rectilinear(const CrossSection& section);

@@ -1,9 +1,14 @@
-// Runs the stages in order and times them.
+// Runs the stages in order, refines the mesh until the results are accurate enough, and times it.
 #include "pipeline/calculate.h"
 
+#include <fmt/format.h>
+
+#include <algorithm>
 #include <chrono>
+#include <numeric>
 #include <stdexcept>
 
+#include "solver/error_indicator.h"
 #include "solver/solve_temperatures.h"
 
 namespace edgeflux {
@@ -15,10 +20,10 @@ double seconds_since(std::chrono::steady_clock::time_point start) {
 
 /// Solves one run for a unit temperature of every environment (one factorisation), then forms
 /// the design field by superposition: θ(x) = Σ_e θ_e · u_e(x).
-Run solve_run(const CrossSection& section, const TriMesh& mesh, std::vector<double> conductivity,
-              std::vector<double> resistance, const SolveOptions& options) {
+Run solve_run(const CrossSection& section, const TriMesh& mesh, SteadyConduction& conduction,
+              const std::vector<double>& conductivity, std::vector<double> resistance) {
   Run run;
-  run.problem.triangle_conductivity = std::move(conductivity);
+  run.problem.triangle_conductivity = conductivity;
   run.problem.surface_resistance = std::move(resistance);
   const std::size_t n_env = section.environments.size();
   std::vector<LoadCase> unit_loads(n_env, LoadCase(section.surfaces.size(), 0.0));
@@ -26,7 +31,7 @@ Run solve_run(const CrossSection& section, const TriMesh& mesh, std::vector<doub
     unit_loads[section.surfaces[s].environment][s] = 1.0;
     run.load.push_back(section.environments[section.surfaces[s].environment].temperature);
   }
-  Solution solution = solve_temperatures(mesh, run.problem, unit_loads, options);
+  Solution solution = conduction.solve(run.problem.surface_resistance, unit_loads);
   run.info = solution.info;
   if (!run.info.ok) throw std::runtime_error("numerical failure: " + run.info.message);
   run.unit_temperature = std::move(solution.temperature);
@@ -38,6 +43,42 @@ Run solve_run(const CrossSection& section, const TriMesh& mesh, std::vector<doub
   return run;
 }
 
+ConvergenceLevel level_record(const Calculation& calc, double seconds) {
+  ConvergenceLevel level;
+  level.nodes = calc.mesh.n_points();
+  level.seconds = seconds;
+  for (const EnvironmentFlow& e : calc.heat_loss.field.environments) {
+    level.heat_flows.push_back(e.heat_flow);
+    level.sum_abs_heat_flow += std::abs(e.heat_flow);
+  }
+  level.coupling_2d = calc.heat_loss.field.coupling_2d;
+  for (const PsiValue& p : calc.junction.psi) level.psi.push_back(p.psi);
+  if (calc.junction.min_interior_surface) level.min_surface_temperature = calc.junction.min_interior_surface->temperature;
+  return level;
+}
+
+/// Marks the quarter of the triangles with the largest error indicator (both runs, each scaled by
+/// its total, so heat flows and surface temperatures both drive the refinement). Ties go to the
+/// lower index, so marking is deterministic.
+std::vector<char> mark_for_refinement(const Calculation& calc) {
+  const int n = calc.mesh.n_triangles();
+  std::vector<double> eta(n, 0.0);
+  for (const Run* run : {&calc.heat_loss, &calc.surface_temperature}) {
+    const std::vector<double> part = flux_jump_indicator(calc.mesh, run->problem, run->temperature, run->load);
+    const double total = std::accumulate(part.begin(), part.end(), 0.0);
+    if (total > 0.0)
+      for (int t = 0; t < n; ++t) eta[t] += part[t] / total;
+  }
+  std::vector<int> order(n);
+  std::iota(order.begin(), order.end(), 0);
+  const int n_marked = std::max(1, n / 4);
+  std::partial_sort(order.begin(), order.begin() + n_marked, order.end(),
+                    [&](int a, int b) { return eta[a] != eta[b] ? eta[a] > eta[b] : a < b; });
+  std::vector<char> marked(n, 0);
+  for (int i = 0; i < n_marked; ++i) marked[order[i]] = 1;
+  return marked;
+}
+
 }  // namespace
 
 std::vector<double> triangle_conductivities(const CrossSection& section, const TriMesh& mesh) {
@@ -47,41 +88,98 @@ std::vector<double> triangle_conductivities(const CrossSection& section, const T
   return conductivity;
 }
 
-Calculation calculate(const CrossSection& section, const CalculationOptions& options) {
-  auto tell = [&](const std::string& stage) { if (options.progress) options.progress(stage); };
+Calculation calculate_on_mesh(const CrossSection& section, TriMesh mesh, const CalculationOptions& options) {
   Calculation calc;
-  MeshOptions mesh_options;
-  mesh_options.density = options.density.value_or(section.mesh.density);
-  mesh_options.mesher = options.mesher.value_or(section.mesh.mesher);
-
-  tell("meshing");
+  calc.mesh = std::move(mesh);
   auto start = std::chrono::steady_clock::now();
-  calc.mesh = mesh_cross_section(section, mesh_options);
-  calc.timings.mesh_seconds = seconds_since(start);
-
-  tell("solving the heat-loss run (" + std::to_string(calc.mesh.n_points()) + " nodes)");
-  start = std::chrono::steady_clock::now();
   const std::vector<double> conductivity = triangle_conductivities(section, calc.mesh);
   std::vector<double> heat_loss_rs, temperature_rs;
   for (const Surface& s : section.surfaces) {
     heat_loss_rs.push_back(s.resistance);
     temperature_rs.push_back(s.temperature_run_resistance);
   }
-  calc.heat_loss = solve_run(section, calc.mesh, conductivity, heat_loss_rs, options.solve);
-  if (temperature_rs == heat_loss_rs) {
+  SteadyConduction conduction(calc.mesh, conductivity, options.solve);
+  calc.heat_loss = solve_run(section, calc.mesh, conduction, conductivity, heat_loss_rs);
+  if (temperature_rs == heat_loss_rs)
     calc.surface_temperature = calc.heat_loss;  // same resistances: the same field
-  } else {
-    tell("solving the surface-temperature run");
-    calc.surface_temperature = solve_run(section, calc.mesh, conductivity, temperature_rs, options.solve);
-  }
+  else
+    calc.surface_temperature = solve_run(section, calc.mesh, conduction, conductivity, temperature_rs);
   calc.timings.solve_seconds = seconds_since(start);
 
-  tell("evaluating");
   start = std::chrono::steady_clock::now();
   for (Run* run : {&calc.heat_loss, &calc.surface_temperature})
     run->field = evaluate_field(section, calc.mesh, run->problem, run->temperature, run->load);
   calc.junction = junction_results(section, calc.mesh, calc.heat_loss, calc.surface_temperature);
   calc.timings.results_seconds = seconds_since(start);
+  return calc;
+}
+
+Calculation calculate(const CrossSection& section, const CalculationOptions& options) {
+  auto tell = [&](const std::string& stage) { if (options.progress) options.progress(stage); };
+  const auto overall = std::chrono::steady_clock::now();
+  MeshOptions mesh_options;
+  mesh_options.density = options.density.value_or(section.mesh.density);
+  mesh_options.mesher = options.mesher.value_or(section.mesh.mesher);
+  const bool grid = mesh_options.mesher == MeshSettings::Mesher::grid;
+
+  Convergence convergence;
+  convergence.adaptive = options.adaptive;
+  convergence.target = options.target;
+  auto start = std::chrono::steady_clock::now();
+  TriMesh mesh = mesh_cross_section(section, mesh_options);
+  double mesh_seconds = seconds_since(start);
+  Calculation calc;
+  for (int level = 0;; ++level) {
+    if (mesh.n_points() > options.max_nodes)
+      throw_input_error({section.file, 0}, "mesh",
+                        fmt::format("{} nodes exceed the limit of {}", mesh.n_points(), options.max_nodes),
+                        "lower the density or the accuracy target");
+    const auto level_start = std::chrono::steady_clock::now();
+    calc = calculate_on_mesh(section, std::move(mesh), options);
+    calc.timings.mesh_seconds = mesh_seconds;
+    convergence.levels.push_back(level_record(calc, mesh_seconds + seconds_since(level_start)));
+    estimate_errors(convergence);
+    {
+      std::string line = fmt::format("level {}: {} nodes", level + 1, calc.mesh.n_points());
+      if (convergence.coupling_2d)
+        line += fmt::format(", L2D = {:.5f} ± {:.5f} W/(m·K)", convergence.coupling_2d->value, convergence.coupling_2d->error);
+      if (convergence.min_surface_temperature)
+        line += fmt::format(", θsi,min ± {:.4f} K", convergence.min_surface_temperature->error);
+      tell(line);
+    }
+    if (!options.adaptive) {
+      convergence.stop_reason = "fixed mesh (no refinement asked for)";
+      break;
+    }
+    if (meets_target(convergence)) {
+      convergence.target_met = true;
+      convergence.stop_reason = "target accuracy reached";
+      break;
+    }
+    if (level + 1 >= options.max_levels) {
+      convergence.stop_reason = fmt::format("stopped after {} levels before reaching the target", options.max_levels);
+      break;
+    }
+    // Refine: adaptively on Delaunay meshes; a grid refines everywhere (density × 1.5).
+    start = std::chrono::steady_clock::now();
+    if (grid) {
+      mesh_options.density *= 1.5;
+      mesh = mesh_cross_section(section, mesh_options);
+    } else {
+      mesh = refine_mesh(section, calc.mesh, mark_for_refinement(calc));
+    }
+    mesh_seconds = seconds_since(start);
+    if (mesh.n_points() > options.max_nodes) {
+      convergence.stop_reason = fmt::format("stopped before reaching the target: the next mesh would exceed the "
+                                            "limit of {} nodes", options.max_nodes);
+      break;
+    }
+  }
+  calc.convergence = std::move(convergence);
+  if (options.adaptive && !calc.convergence.target_met)
+    calc.junction.warnings.push_back("the mesh refinement did not reach the accuracy target (" + calc.convergence.stop_reason +
+                                     "); the error bars show the accuracy reached");
+  calc.total_seconds = seconds_since(overall);
   return calc;
 }
 

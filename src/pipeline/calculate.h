@@ -7,6 +7,7 @@
 
 #include "geometry/cross_section.h"
 #include "mesh/mesh_cross_section.h"
+#include "results/convergence.h"
 #include "results/field_results.h"
 #include "results/junction_results.h"
 #include "results/run.h"
@@ -18,6 +19,12 @@ struct CalculationOptions {
   std::optional<double> density;                        ///< overrides the file's <mesh density>
   std::optional<MeshSettings::Mesher> mesher;           ///< overrides the file's <mesh mesher>
   SolveOptions solve;
+  /// Refine adaptively until every reported quantity meets `target` (default); when false, solve
+  /// once on the mesh of the given density.
+  bool adaptive = true;
+  AccuracyTarget target;
+  int max_levels = 14;
+  int max_nodes = 2'000'000;  ///< the documented node limit; refinement stops before exceeding it
   std::function<void(const std::string&)> progress;     ///< told of each stage, may be empty
 };
 
@@ -32,10 +39,16 @@ struct Calculation {
   Run heat_loss;            ///< the surface resistances of the file (ISO 6946)
   Run surface_temperature;  ///< interior Rsi replaced (ISO 13788): 0.25 opaque, 0.13 glazing
   JunctionResults junction;
-  Timings timings;
+  Convergence convergence;  ///< levels and error estimates (one level when not adaptive)
+  Timings timings;          ///< of the final level
+  double total_seconds = 0.0;
 };
 
-/// Runs both calculations. Throws InputError for problems in the section; a numerical failure is
+/// Solves both runs on a given mesh and reads off all results (no convergence data).
+Calculation calculate_on_mesh(const CrossSection& section, TriMesh mesh, const CalculationOptions& options);
+
+/// Runs both calculations, refining the mesh until the target accuracy is met (or once on a
+/// fixed mesh). Throws InputError for problems in the section; a numerical failure is
 /// thrown as std::runtime_error with the solver's message.
 Calculation calculate(const CrossSection& section, const CalculationOptions& options);
 

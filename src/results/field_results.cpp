@@ -39,7 +39,7 @@ std::vector<double> surface_heat_flows(const TriMesh& mesh, const ThermalProblem
     }
   }
   // A fixed node supplies whatever its balance needs; shared corner nodes split it equally.
-  const auto fixed = fixed_surfaces_per_node(mesh, problem);
+  const auto fixed = fixed_surfaces_per_node(mesh, problem.surface_resistance);
   for (int i = 0; i < mesh.n_points(); ++i) {
     if (fixed[i].empty()) continue;
     const double reaction = conduction_out[i] - robin_in[i];

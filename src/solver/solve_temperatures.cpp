@@ -16,33 +16,41 @@ double seconds_since(std::chrono::steady_clock::time_point start) {
   return std::chrono::duration<double>(std::chrono::steady_clock::now() - start).count();
 }
 
-template <class Factorization>
-bool factor_and_solve(Factorization& solver, const Eigen::SparseMatrix<double>& a,
-                      const Eigen::MatrixXd& b, Eigen::MatrixXd& x, SolveInfo& info) {
-  auto start = std::chrono::steady_clock::now();
-  solver.compute(a);
-  info.factorize_seconds = seconds_since(start);
-  if (solver.info() != Eigen::Success) {
-    info.message = "the conduction matrix could not be factorised (is some part of the section "
-                   "connected to no surface?)";
-    return false;
-  }
-  start = std::chrono::steady_clock::now();
-  x = solver.solve(b);
-  info.solve_seconds = seconds_since(start);
-  if (solver.info() != Eigen::Success) {
-    info.message = "the linear solve failed";
-    return false;
-  }
-  return true;
-}
+using SparseMatrix = Eigen::SparseMatrix<double>;
 
 }  // namespace
 
-std::vector<std::vector<int>> fixed_surfaces_per_node(const TriMesh& mesh, const ThermalProblem& problem) {
+struct SteadyConduction::State {
+  const TriMesh* mesh;
+  SolveOptions options;
+  SparseMatrix conduction;             // K, #P × #P
+  std::vector<int> diagonal_position;  // index of K(i, i) in conduction.valuePtr()
+  // Symbolic analysis of the reduced matrix, kept while the fixed nodes stay the same.
+  std::vector<std::vector<int>> analysed_fixed;
+  bool analysed = false;
+  Eigen::CholmodSupernodalLLT<SparseMatrix> cholmod;
+  Eigen::SimplicialLDLT<SparseMatrix> ldlt;
+};
+
+SteadyConduction::SteadyConduction(const TriMesh& mesh, const std::vector<double>& triangle_conductivity,
+                                   SolveOptions options)
+    : state_(std::make_unique<State>()) {
+  state_->mesh = &mesh;
+  state_->options = options;
+  state_->conduction = conduction_matrix(mesh, triangle_conductivity);
+  const SparseMatrix& k = state_->conduction;
+  state_->diagonal_position.assign(mesh.n_points(), -1);
+  for (int col = 0; col < k.outerSize(); ++col)
+    for (auto index = k.outerIndexPtr()[col]; index < k.outerIndexPtr()[col + 1]; ++index)
+      if (k.innerIndexPtr()[index] == col) state_->diagonal_position[col] = static_cast<int>(index);
+}
+
+SteadyConduction::~SteadyConduction() = default;
+
+std::vector<std::vector<int>> fixed_surfaces_per_node(const TriMesh& mesh, const std::vector<double>& surface_resistance) {
   std::vector<std::vector<int>> fixed(mesh.n_points());
   for (const BoundaryEdge& edge : mesh.boundary_edges) {
-    if (edge.surface < 0 || problem.surface_resistance[edge.surface] != 0.0) continue;
+    if (edge.surface < 0 || surface_resistance[edge.surface] != 0.0) continue;
     for (int node : {edge.a, edge.b}) {
       auto& list = fixed[node];
       if (std::find(list.begin(), list.end(), edge.surface) == list.end()) list.push_back(edge.surface);
@@ -51,15 +59,14 @@ std::vector<std::vector<int>> fixed_surfaces_per_node(const TriMesh& mesh, const
   return fixed;
 }
 
-Solution solve_temperatures(const TriMesh& mesh, const ThermalProblem& problem,
-                            const std::vector<LoadCase>& load_cases, const SolveOptions& options) {
+Solution SteadyConduction::solve(const std::vector<double>& surface_resistance, const std::vector<LoadCase>& load_cases) {
+  State& st = *state_;
+  const TriMesh& mesh = *st.mesh;
   const int n = mesh.n_points();
   const int n_cases = static_cast<int>(load_cases.size());
   Solution solution;
   SolveInfo& info = solution.info;
   auto start = std::chrono::steady_clock::now();
-
-  Eigen::SparseMatrix<double> k = conduction_matrix(mesh, problem.triangle_conductivity);
 
   // Surface resistances: each node's share of a boundary edge (half its length) exchanges heat
   // with the environment through the surface coefficient 1/Rs.
@@ -67,7 +74,7 @@ Solution solve_temperatures(const TriMesh& mesh, const ThermalProblem& problem,
   Eigen::MatrixXd rhs_full = Eigen::MatrixXd::Zero(n, n_cases);
   for (const BoundaryEdge& edge : mesh.boundary_edges) {
     if (edge.surface < 0) continue;
-    const double rs = problem.surface_resistance[edge.surface];
+    const double rs = surface_resistance[edge.surface];
     if (rs == 0.0) continue;
     const double share = 0.5 * distance(mesh.points[edge.a], mesh.points[edge.b]) / rs;
     for (int node : {edge.a, edge.b}) {
@@ -75,10 +82,9 @@ Solution solve_temperatures(const TriMesh& mesh, const ThermalProblem& problem,
       for (int c = 0; c < n_cases; ++c) rhs_full(node, c) += share * load_cases[c][edge.surface];
     }
   }
-  for (int i = 0; i < n; ++i) k.coeffRef(i, i) += robin_diagonal[i];
 
   // Fixed temperatures: a node on several fixed surfaces (a corner where two meet) takes their mean.
-  const auto fixed = fixed_surfaces_per_node(mesh, problem);
+  const auto fixed = fixed_surfaces_per_node(mesh, surface_resistance);
   std::vector<int> unknown(n, -1);
   int n_unknowns = 0;
   for (int i = 0; i < n; ++i)
@@ -93,60 +99,94 @@ Solution solve_temperatures(const TriMesh& mesh, const ThermalProblem& problem,
     }
   }
 
-  std::vector<Eigen::Triplet<double>> entries;
-  entries.reserve(k.nonZeros());
+  SparseMatrix a;
   Eigen::MatrixXd rhs(n_unknowns, n_cases);
-  for (int i = 0; i < n; ++i)
-    if (unknown[i] >= 0) rhs.row(unknown[i]) = rhs_full.row(i);
-  for (int col = 0; col < k.outerSize(); ++col) {
-    for (Eigen::SparseMatrix<double>::InnerIterator it(k, col); it; ++it) {
-      const int row = static_cast<int>(it.row());
-      if (unknown[row] < 0) continue;
-      if (unknown[col] >= 0)
-        entries.emplace_back(unknown[row], unknown[col], it.value());
-      else
-        rhs.row(unknown[row]) -= it.value() * known.row(col);
+  if (n_unknowns == n) {
+    // No fixed nodes (the usual case): the system is K + R itself.
+    a = st.conduction;
+    for (int i = 0; i < n; ++i) a.valuePtr()[st.diagonal_position[i]] += robin_diagonal[i];
+    rhs = rhs_full;
+  } else {
+    std::vector<Eigen::Triplet<double>> entries;
+    entries.reserve(st.conduction.nonZeros());
+    for (int i = 0; i < n; ++i)
+      if (unknown[i] >= 0) rhs.row(unknown[i]) = rhs_full.row(i);
+    for (int col = 0; col < st.conduction.outerSize(); ++col) {
+      for (SparseMatrix::InnerIterator it(st.conduction, col); it; ++it) {
+        const int row = static_cast<int>(it.row());
+        if (unknown[row] < 0) continue;
+        const double value = it.value() + (row == col ? robin_diagonal[row] : 0.0);
+        if (unknown[col] >= 0)
+          entries.emplace_back(unknown[row], unknown[col], value);
+        else
+          rhs.row(unknown[row]) -= value * known.row(col);
+      }
     }
+    a.resize(n_unknowns, n_unknowns);
+    a.setFromTriplets(entries.begin(), entries.end());
   }
-  Eigen::SparseMatrix<double> a(n_unknowns, n_unknowns);
-  a.setFromTriplets(entries.begin(), entries.end());
   info.n_unknowns = n_unknowns;
   info.assemble_seconds = seconds_since(start);
 
   Eigen::MatrixXd x;
   bool ok = true;
   if (n_unknowns > 0) {
-    switch (options.solver) {
-      case LinearSolver::supernodal_cholesky: {
+    start = std::chrono::steady_clock::now();
+    // The pattern of the reduced matrix depends only on which nodes are fixed: reuse the
+    // symbolic analysis (ordering and elimination tree) across runs when those are unchanged.
+    const bool reuse = st.analysed && st.analysed_fixed == fixed;
+    auto finish = [&](auto& solver) {
+      if (!reuse) solver.analyzePattern(a);
+      solver.factorize(a);
+      info.factorize_seconds = seconds_since(start);
+      if (solver.info() != Eigen::Success) {
+        info.message = "the conduction matrix could not be factorised (is some part of the section connected to no surface?)";
+        return false;
+      }
+      start = std::chrono::steady_clock::now();
+      x = solver.solve(rhs);
+      info.solve_seconds = seconds_since(start);
+      return solver.info() == Eigen::Success;
+    };
+    switch (st.options.solver) {
+      case LinearSolver::supernodal_cholesky:
         info.solver = "supernodal Cholesky (CHOLMOD)";
-        Eigen::CholmodSupernodalLLT<Eigen::SparseMatrix<double>> solver;
-        ok = factor_and_solve(solver, a, rhs, x, info);
+        ok = finish(st.cholmod);
         break;
-      }
-      case LinearSolver::simplicial_ldlt: {
+      case LinearSolver::simplicial_ldlt:
         info.solver = "simplicial LDLT (Eigen)";
-        Eigen::SimplicialLDLT<Eigen::SparseMatrix<double>> solver;
-        ok = factor_and_solve(solver, a, rhs, x, info);
+        ok = finish(st.ldlt);
         break;
-      }
       case LinearSolver::conjugate_gradient: {
         info.solver = "conjugate gradient, incomplete Cholesky (Eigen)";
-        Eigen::ConjugateGradient<Eigen::SparseMatrix<double>, Eigen::Lower | Eigen::Upper,
-                                 Eigen::IncompleteCholesky<double>> solver;
-        solver.setTolerance(1e-13);
-        ok = factor_and_solve(solver, a, rhs, x, info);
+        Eigen::ConjugateGradient<SparseMatrix, Eigen::Lower | Eigen::Upper, Eigen::IncompleteCholesky<double>> cg;
+        cg.setTolerance(1e-13);
+        cg.compute(a);
+        info.factorize_seconds = seconds_since(start);
+        start = std::chrono::steady_clock::now();
+        x = cg.solve(rhs);
+        info.solve_seconds = seconds_since(start);
+        ok = cg.info() == Eigen::Success;
         break;
       }
     }
+    st.analysed = ok && st.options.solver != LinearSolver::conjugate_gradient;
+    st.analysed_fixed = fixed;
+    if (!ok && info.message.empty()) info.message = "the linear solve did not converge";
   }
   info.ok = ok;
   if (!ok) return solution;
 
   solution.temperature.assign(n_cases, std::vector<double>(n));
   for (int c = 0; c < n_cases; ++c)
-    for (int i = 0; i < n; ++i)
-      solution.temperature[c][i] = unknown[i] >= 0 ? x(unknown[i], c) : known(i, c);
+    for (int i = 0; i < n; ++i) solution.temperature[c][i] = unknown[i] >= 0 ? x(unknown[i], c) : known(i, c);
   return solution;
+}
+
+Solution solve_temperatures(const TriMesh& mesh, const ThermalProblem& problem, const std::vector<LoadCase>& load_cases,
+                            const SolveOptions& options) {
+  SteadyConduction conduction(mesh, problem.triangle_conductivity, options);
+  return conduction.solve(problem.surface_resistance, load_cases);
 }
 
 }  // namespace edgeflux
