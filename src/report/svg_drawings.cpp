@@ -121,6 +121,9 @@ std::string length_text(double metres, const CrossSection& section) {
   return s;
 }
 
+/// λ with the digits a designer writes: 0.035, 0.99, 2.50, 230.
+std::string conductivity_text(double v) { return fmt::format("{:.{}f}", v, v < 0.1 ? 3 : v < 10 ? 2 : 0); }
+
 std::string degrees(double v, int decimals) { return svg::label_number(v, decimals) + " °C"; }
 
 /// Text with a white halo, so it reads over hatches and colour fields.
@@ -192,16 +195,25 @@ struct Placement {
 Placement place_label(const Occupied& occupied, const SectionHitTest& section, const Box& allowed, Point anchor, Point along,
                       double along_length, Point outward, double w, double h) {
   const double half_normal = std::abs(outward.x) * w / 2 + std::abs(outward.y) * h / 2;
-  std::optional<Placement> fallback;
-  for (double d : {1.5, 3.5, 6.0, 9.0, 13.0, 18.0, 24.0, 32.0}) {
-    for (double s : {0.0, 0.2, -0.2, 0.35, -0.35, 0.45, -0.45}) {
-      const Point on = anchor + (s * along_length) * along;
-      const Point c = on + (d + half_normal) * outward;
-      const Box b{c.x - w / 2, c.y - h / 2, c.x + w / 2, c.y + h / 2};
-      if (!allowed.contains(b)) continue;
-      if (!fallback) fallback = Placement{b, on};
-      if (occupied.is_free(b.grown(0.6)) && !section.hits(b.grown(0.5))) return {b, on};
+  // Candidates by cost: distance from the element, plus sliding along it, plus (much more)
+  // sliding beyond its ends.
+  struct Candidate { double cost, d, s; };
+  std::vector<Candidate> candidates;
+  for (double d : {1.5, 3.5, 6.0, 9.0, 13.0, 18.0, 24.0, 32.0})
+    for (double s : {0.0, 0.1, -0.1, 0.2, -0.2, 0.35, -0.35, 0.45, -0.45, 0.7, -0.7, 1.0, -1.0, 1.5, -1.5, 2.0, -2.0, 3.0, -3.0}) {
+      const double a = std::abs(s);
+      candidates.push_back({d + 0.15 * std::min(a, 0.45) * along_length + std::max(0.0, a - 0.45) * along_length, d, s});
     }
+  std::stable_sort(candidates.begin(), candidates.end(), [](const Candidate& x, const Candidate& y) { return x.cost < y.cost; });
+  std::optional<Placement> fallback;
+  for (const Candidate& k : candidates) {
+    // The leader starts on the element; beyond its ends only the label moves on.
+    const Point on = anchor + (std::clamp(k.s, -0.45, 0.45) * along_length) * along;
+    const Point c = anchor + (k.s * along_length) * along + (k.d + half_normal) * outward;
+    const Box b{c.x - w / 2, c.y - h / 2, c.x + w / 2, c.y + h / 2};
+    if (!allowed.contains(b)) continue;
+    if (!fallback) fallback = Placement{b, on};
+    if (occupied.is_free(b.grown(0.6)) && !section.hits(b.grown(0.5))) return {b, on};
   }
   if (fallback) return *fallback;
   const Point c = anchor + (3.0 + half_normal) * outward;
@@ -250,39 +262,58 @@ void dimension_chain(std::string& out, Occupied& occupied, Box& extent, bool hor
   }
   out += fmt::format("<path d=\"{}\" stroke=\"#222\" stroke-width=\"0.18\" fill=\"none\"/>\n", d);
   include(extent, {std::min(l0.x, l1.x) - 1, std::min(l0.y, l1.y) - 1, std::max(l0.x, l1.x) + 1, std::max(l0.y, l1.y) + 1});
-  for (std::size_t i = 0; i + 1 < ticks.size(); ++i) {
+  // Values that fit their span first, so the others make way for them, not the reverse.
+  std::vector<std::size_t> order;
+  for (int pass = 0; pass < 2; ++pass)
+    for (std::size_t i = 0; i + 1 < ticks.size(); ++i)
+      if ((svg::text_width(texts[i], font_size) + 0.8 < ticks[i + 1] - ticks[i]) == (pass == 0)) order.push_back(i);
+  for (std::size_t i : order) {
     const double mid = 0.5 * (ticks[i] + ticks[i + 1]), span = ticks[i + 1] - ticks[i];
     const double w = svg::text_width(texts[i], font_size), h = font_size * 0.85;
     // Text sits on the side of the line toward the drawing for horizontal chains, outside for
-    // vertical ones (read from the right, as on drawings); a value that does not fit its span
-    // moves along the line to the nearest free place.
+    // vertical ones (read from the right, as on drawings). A value too long for its span moves to
+    // the nearest free place: along the line for horizontal chains, out to the side, upright and
+    // with a leader, for vertical ones.
+    const bool fits = w + 0.8 < span;
     const double across_side = horizontal ? -dir : -1.0;
     std::optional<Box> chosen;
-    double chosen_along = mid;
-    const bool fits = w + 0.8 < span;
-    for (int k = 0; k < 12 && !chosen; ++k) {
-      const double shift = fits ? 0.0 : (k == 0 ? 0.0 : ((k + 1) / 2) * (k % 2 ? 1.0 : -1.0) * (w * 0.5 + span * 0.5 + 0.8));
-      if (!fits && k == 0) continue;
-      const double along = mid + shift;
-      const double c_across = at + across_side * (0.6 + h / 2);
-      const Box b = horizontal ? Box{along - w / 2, c_across - h / 2, along + w / 2, c_across + h / 2}
-                               : Box{c_across - h / 2, along - w / 2, c_across + h / 2, along + w / 2};
-      if (occupied.is_free(b.grown(0.25)) || k == 11) chosen = b, chosen_along = along;
-      if (fits) break;
+    const int tries = horizontal ? 13 : 41;
+    for (int k = 0; k < tries && !chosen; ++k) {
+      // Along horizontal chains jump past the neighbouring spans; beside vertical ones creep in
+      // half-millimetre steps, so values keep the order of their spans.
+      const double step = horizontal ? (w * 0.5 + span * 0.5 + 0.8) : 0.5;
+      const double shift = k == 0 ? 0.0 : ((k + 1) / 2) * (k % 2 ? 1.0 : -1.0) * step;
+      Box box;
+      if (fits) {
+        const double c_across = at + across_side * (0.6 + h / 2);
+        box = horizontal ? Box{mid - w / 2, c_across - h / 2, mid + w / 2, c_across + h / 2}
+                         : Box{c_across - h / 2, mid - w / 2, c_across + h / 2, mid + w / 2};
+      } else if (horizontal) {
+        if (k == 0) continue;
+        const double c_across = at + across_side * (0.6 + h / 2);
+        box = {mid + shift - w / 2, c_across - h / 2, mid + shift + w / 2, c_across + h / 2};
+      } else {
+        box = {at - 1.0 - w, mid + shift - h / 2, at - 1.0, mid + shift + h / 2};
+      }
+      if (fits || occupied.is_free(box.grown(0.25)) || k == tries - 1) chosen = box;
     }
-    if (!chosen) continue;
     occupied.add(*chosen);
     include(extent, *chosen);
     const Point c{0.5 * (chosen->x0 + chosen->x1), 0.5 * (chosen->y0 + chosen->y1)};
-    if (horizontal)
+    if (horizontal || !fits)
       out += fmt::format("<text x=\"{}\" y=\"{}\" font-size=\"{}\" text-anchor=\"middle\">{}</text>\n", num(c.x), num(chosen->y1 - 0.15),
                          num(font_size), escape(texts[i]));
     else
       out += fmt::format("<text transform=\"translate({} {}) rotate(-90)\" font-size=\"{}\" text-anchor=\"middle\">{}</text>\n",
                          num(chosen->x1 - 0.15), num(c.y), num(font_size), escape(texts[i]));
-    if (std::abs(chosen_along - mid) > 0.01) {  // a short leader from the span to its value
-      const Point a = P(mid, at), b = P(chosen_along - (chosen_along > mid ? 1 : -1) * w / 2, at + across_side * (0.6 + h / 2));
-      out += fmt::format("<path d=\"M{} {} L{} {}\" stroke=\"#666\" stroke-width=\"0.12\"/>\n", num(a.x), num(a.y), num(b.x), num(b.y));
+    // A short leader from the span to a value that had to move.
+    const Point on_line = P(mid, at);
+    if (horizontal && std::abs(c.x - mid) > 0.01) {
+      const Point end{c.x + (c.x > mid ? -w / 2 : w / 2), c.y};
+      out += fmt::format("<path d=\"M{} {} L{} {}\" stroke=\"#666\" stroke-width=\"0.12\"/>\n", num(on_line.x), num(on_line.y), num(end.x), num(end.y));
+    } else if (!horizontal && !fits) {
+      out += fmt::format("<path d=\"M{} {} L{} {}\" stroke=\"#666\" stroke-width=\"0.12\"/>\n", num(on_line.x), num(on_line.y), num(chosen->x1 + 0.1),
+                         num(c.y));
     }
   }
 }
@@ -459,27 +490,18 @@ Drawing detail_drawing(const CrossSection& section, const Calculation& calc) {
     flank_labels.push_back({mid, along, -1.0 * inward, distance(pa, pb), lines});
   }
 
-  // Dimension chains below and left of the section, outside anything drawn so far.
-  {
-    const double bottom = std::max(drawing.y1, extent.y1) + 4.0, left = std::min(drawing.x0, extent.x0) - 4.0;
-    auto chain = [&](bool horizontal, double at, const std::vector<double>& coords) {
-      std::vector<double> ticks;
-      std::vector<std::string> texts;
-      for (double c : coords) ticks.push_back(horizontal ? f.to_paper({c, 0}).x : f.to_paper({0, c}).y);
-      if (!horizontal) std::reverse(ticks.begin(), ticks.end());
-      std::vector<double> sorted_coords = coords;
-      if (!horizontal) std::reverse(sorted_coords.begin(), sorted_coords.end());
-      for (std::size_t i = 0; i + 1 < sorted_coords.size(); ++i) texts.push_back(length_text(std::abs(sorted_coords[i + 1] - sorted_coords[i]), section));
-      dimension_chain(body, occupied, extent, horizontal, at, horizontal ? drawing.y1 : drawing.x0, ticks, texts);
-    };
-    const auto xs = distinct_coordinates(section, true, b.x0, b.x1), ys = distinct_coordinates(section, false, b.y0, b.y1);
-    double row = 0;
-    if (xs.size() > 2 && xs.size() <= 16) chain(true, bottom + row, xs), row += 6.0;
-    chain(true, bottom + row, {b.x0, b.x1});
-    row = 0;
-    if (ys.size() > 2 && ys.size() <= 16) chain(false, left - row, ys), row += 6.5;
-    chain(false, left - row, {b.y0, b.y1});
+  // The dimension chains come last, outside the labels; keep labels off their extension lines.
+  Occupied label_occupied = occupied;
+  const auto xs = distinct_coordinates(section, true, b.x0, b.x1), ys = distinct_coordinates(section, false, b.y0, b.y1);
+  for (double x : xs) {
+    const double px = f.to_paper({x, 0}).x;
+    label_occupied.add({px - 0.3, drawing.y1 + 0.5, px + 0.3, allowed.y1});
   }
+  for (double y : ys) {
+    const double py = f.to_paper({0, y}).y;
+    label_occupied.add({allowed.x0, py - 0.3, drawing.x0 - 0.5, py + 0.3});
+  }
+  body += "<!--labels-->";
 
   // Probes: numbered markers; the table gives their names.
   for (std::size_t i = 0; i < section.probes.size(); ++i) {
@@ -509,17 +531,45 @@ Drawing detail_drawing(const CrossSection& section, const Calculation& calc) {
                                                    : fmt::format("Rs {:.2f} | {:.2f} m²K/W", surface.resistance, surface.temperature_run_resistance));
     if (surface.kind == SurfaceKind::glazing) lines.back() += " (glazing)";
     const Box size = label_size_box(lines);
-    const Placement p = place_label(occupied, hit, allowed, mid, along, distance(a, c), outward, size.x1, size.y1);
+    const Placement p = place_label(label_occupied, hit, allowed, mid, along, distance(a, c), outward, size.x1, size.y1);
     occupied.add(p.box);
+    label_occupied.add(p.box);
     include(extent, p.box);
     body += label_block(p, lines, environment_colour(section, surface.environment), true);
   }
   for (const FlankLabel& fl : flank_labels) {
     const Box size = label_size_box(fl.lines);
-    const Placement p = place_label(occupied, hit, allowed, fl.anchor, fl.along, fl.length, fl.outward, size.x1, size.y1);
+    const Placement p = place_label(label_occupied, hit, allowed, fl.anchor, fl.along, fl.length, fl.outward, size.x1, size.y1);
     occupied.add(p.box);
+    label_occupied.add(p.box);
     include(extent, p.box);
     body += label_block(p, fl.lines, "#111", false);
+  }
+
+  // Dimension chains below and left of everything else; painted under the labels, whose white
+  // boxes then interrupt the extension lines instead of being crossed by them.
+  std::string dims;
+  {
+    const double bottom = std::max(drawing.y1, extent.y1) + 4.0, left = std::min(drawing.x0, extent.x0) - 4.0;
+    auto chain = [&](bool horizontal, double at, const std::vector<double>& coords) {
+      std::vector<double> ticks;
+      std::vector<std::string> texts;
+      std::vector<double> ordered = coords;  // in paper order: left to right, top to bottom
+      if (!horizontal) std::reverse(ordered.begin(), ordered.end());
+      for (double c : ordered) ticks.push_back(horizontal ? f.to_paper({c, 0}).x : f.to_paper({0, c}).y);
+      for (std::size_t i = 0; i + 1 < ordered.size(); ++i) texts.push_back(length_text(std::abs(ordered[i + 1] - ordered[i]), section));
+      dimension_chain(dims, occupied, extent, horizontal, at, horizontal ? drawing.y1 : drawing.x0, ticks, texts);
+    };
+    double row = 0;
+    if (xs.size() > 2 && xs.size() <= 16) chain(true, bottom + row, xs), row += 6.0;
+    chain(true, bottom + row, {b.x0, b.x1});
+    row = 0;
+    if (ys.size() > 2 && ys.size() <= 16) chain(false, left - row, ys), row += 7.0;
+    chain(false, left - row, {b.y0, b.y1});
+  }
+  {
+    const std::size_t at = body.find("<!--labels-->");
+    body.replace(at, std::string("<!--labels-->").size(), dims);
   }
 
   // Scale bar and legend below everything.
@@ -528,8 +578,10 @@ Drawing detail_drawing(const CrossSection& section, const Calculation& calc) {
   y = extent.y1 + 5.0;
   const double x0 = extent.x0;
   const double width = std::max(extent.x1 - extent.x0, 120.0);
-  const int columns = width >= 150 ? 2 : 1;
-  const double column_w = width / columns;
+  const int columns = width >= 115 ? 2 : 1;
+  double widest = 0;
+  for (const Material& m : section.materials) widest = std::max(widest, svg::text_width(m.id + "  λ = 0.035 W/(m·K)", font_size));
+  const double column_w = std::max(width / columns, widest + 16.0);
   std::string legend_defs;
   body += fmt::format("<text x=\"{}\" y=\"{}\" font-size=\"{}\" font-weight=\"bold\">Materials</text>\n", num(x0), num(y), num(font_size));
   y += 2.0;
@@ -537,8 +589,9 @@ Drawing detail_drawing(const CrossSection& section, const Calculation& calc) {
     const double cx = x0 + (m % columns) * column_w, cy = y + (m / columns) * 5.2;
     body += fmt::format("<rect x=\"{}\" y=\"{}\" width=\"9\" height=\"4\" fill=\"url(#detail-m{}-h)\" stroke=\"#333\" stroke-width=\"0.15\"/>\n",
                         num(cx), num(cy), m);
-    body += fmt::format("<text x=\"{}\" y=\"{}\" font-size=\"{}\"><tspan font-weight=\"bold\">{}</tspan>  λ = {:.3g} W/(m·K)</text>\n",
-                        num(cx + 11), num(cy + 3.0), num(font_size), escape(section.materials[m].id), section.materials[m].conductivity);
+    body += fmt::format("<text x=\"{}\" y=\"{}\" font-size=\"{}\"><tspan font-weight=\"bold\">{}</tspan>  λ = {} W/(m·K)</text>\n",
+                        num(cx + 11), num(cy + 3.0), num(font_size), escape(section.materials[m].id), conductivity_text(section.materials[m].conductivity));
+    include(extent, {cx, cy, cx + 11 + svg::text_width(section.materials[m].id + "  λ = 0.035 W/(m·K)", font_size), cy + 4});
   }
   y += ((section.materials.size() + columns - 1) / columns) * 5.2 + 3.0;
   body += fmt::format("<text x=\"{}\" y=\"{}\" font-size=\"{}\" font-weight=\"bold\">Boundaries</text>\n", num(x0), num(y), num(font_size));
@@ -555,11 +608,12 @@ Drawing detail_drawing(const CrossSection& section, const Calculation& calc) {
     const double cx = x0 + (k % columns) * column_w, cy = y + (k / columns) * 4.6;
     body += fmt::format("<path d=\"M{} {} L{} {}\" {} fill=\"none\"/>\n", num(cx), num(cy + 2), num(cx + 9), num(cy + 2), keys[k].first);
     body += fmt::format("<text x=\"{}\" y=\"{}\" font-size=\"{}\">{}</text>\n", num(cx + 11), num(cy + 2.8), num(font_size), escape(keys[k].second));
+    include(extent, {cx, cy, cx + 11 + svg::text_width(keys[k].second, font_size), cy + 4});
   }
   y += ((keys.size() + columns - 1) / columns) * 4.6;
-  body += fmt::format("<text x=\"{}\" y=\"{}\" font-size=\"{}\" fill=\"#444\">Rs a | b: surface resistance of the heat-loss run (ISO 6946) | of the surface-temperature run (ISO 13788). "
-                      "Dimensions in {}.</text>\n", num(x0), num(y + 2.5), num(small_font_size), escape(section.unit));
-  include(extent, {x0, y - 1, x0 + width, y + 4});
+  const std::string note = fmt::format("Rs a | b: heat-loss run (ISO 6946) | surface-temperature run (ISO 13788), m²K/W · dimensions in {}", section.unit);
+  body += fmt::format("<text x=\"{}\" y=\"{}\" font-size=\"{}\" fill=\"#444\">{}</text>\n", num(x0), num(y + 2.5), num(small_font_size), escape(note));
+  include(extent, {x0, y - 1, x0 + std::max(width, svg::text_width(note, small_font_size)), y + 4});
 
   Drawing d;
   d.id = "detail";
@@ -721,8 +775,8 @@ Drawing temperature_drawing(const CrossSection& section, const Calculation& calc
 
   const auto [lo_it, hi_it] = std::minmax_element(T.begin(), T.end());
   const double t_min = *lo_it, t_max = *hi_it;
-  const double step = svg::nice_step(std::max(t_max - t_min, 1e-6), 10);
-  const double band = step / 2.0;
+  const double step = svg::nice_step(std::max(t_max - t_min, 1e-6), 14);
+  const double band = step / 4.0;  // fine bands read as a continuous field; the isotherms carry the numbers
   const double lo = std::floor(t_min / band) * band, hi = std::max(lo + band, std::ceil(t_max / band) * band);
   const int n_bands = std::max(1, static_cast<int>(std::lround((hi - lo) / band)));
   auto band_colour = [&](int k) { return hex_colour(colour_at(ColourMap::viridis, (k + 0.5) / n_bands)); };
@@ -1003,7 +1057,7 @@ Drawing surface_temperature_plot(const CrossSection& section, const Calculation&
   Drawing out;
   out.id = "surface-temperature";
   out.title = "Interior surface temperature";
-  const double plot_x0 = 16, plot_y0 = 12, plot_w = 138, plot_h = 72;
+  const double plot_x0 = 16, plot_y0 = 9, plot_w = 138, plot_h = 72;
   Box extent{0, 0, plot_x0 + plot_w + 22, plot_y0 + plot_h + 14};
   std::string body;
   if (walk.empty()) {
@@ -1051,7 +1105,9 @@ Drawing surface_temperature_plot(const CrossSection& section, const Calculation&
   std::vector<std::pair<std::size_t, std::size_t>> runs;  // sample ranges of one surface
   for (std::size_t i = 1; i < walk.size(); ++i) {
     const int surface = walk[i].surface;
-    if (runs.empty() || walk[runs.back().second].surface != surface || walk[i].chain != walk[runs.back().second].chain)
+    if (walk[i].chain != walk[i - 1].chain)
+      runs.push_back({i, i});  // a new stretch starts at its own first node
+    else if (runs.empty() || walk[runs.back().second].surface != surface || walk[runs.back().second].chain != walk[i].chain)
       runs.push_back({i - 1, i});
     else
       runs.back().second = i;
