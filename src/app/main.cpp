@@ -1,6 +1,7 @@
 // The edgeflux command line: the only place that knows about exit codes.
 //   0  success            2  a problem in the input (message says where and how to fix it)
 //   1  usage error        3  numerical failure or internal error
+//   4  the conformity check found a value outside the ISO 10211 tolerance
 #include <CLI/CLI.hpp>
 #include <fmt/format.h>
 
@@ -14,6 +15,7 @@
 #include "report/json_results.h"
 #include "report/output_files.h"
 #include "report/summary_text.h"
+#include "validation/iso10211_conformity.h"
 
 namespace {
 
@@ -26,6 +28,8 @@ struct SolveArgs {
   std::string mesher;
   std::string solver = "cholesky";
   bool quiet = false;
+  bool fixed_mesh = false;
+  AccuracyTarget target;
   OutputRequest outputs;  ///< --report, --svg-dir, --png-dir, --vtu, --surface-csv
 };
 
@@ -39,6 +43,8 @@ int run_solve(const SolveArgs& args) {
   if (args.solver == "ldlt") options.solve.solver = LinearSolver::simplicial_ldlt;
   else if (args.solver == "cg") options.solve.solver = LinearSolver::conjugate_gradient;
   if (!args.quiet) options.progress = [](const std::string& stage) { fmt::print(stderr, "edgeflux: {}…\n", stage); };
+  options.adaptive = !args.fixed_mesh;
+  options.target = args.target;
 
   const Calculation calc = calculate(section, options);
   // Every output is built in memory first, so a failure leaves no file behind.
@@ -77,13 +83,39 @@ int main(int argc, char** argv) {
   solve_cmd->add_option("--vtu", solve.outputs.vtu_file, "Write mesh, temperatures and heat flux as VTK XML (.vtu) to this file");
   solve_cmd->add_option("--surface-csv", solve.outputs.surface_csv, "Write interior surface temperatures along the surface as CSV to this file");
 
+  solve_cmd->add_option("--target", solve.target.coupling_relative,
+                        "Relative accuracy asked of L2D (and of each heat flow), default 0.001 = 0.1 %")
+      ->check(CLI::Range(1e-6, 0.1));
+  solve_cmd->add_option("--psi-target", solve.target.psi_absolute, "Accuracy asked of ψ in W/(m·K), default 0.0005")
+      ->check(CLI::Range(1e-7, 0.1));
+  solve_cmd->add_option("--temperature-target", solve.target.temperature_absolute,
+                        "Accuracy asked of the minimum interior surface temperature in K, default 0.01")
+      ->check(CLI::Range(1e-6, 1.0));
+  solve_cmd->add_flag("--fixed-mesh", solve.fixed_mesh,
+                      "Solve once on the mesh of --density instead of refining to the accuracy targets");
+
+  bool conformity_quiet = false;
+  CLI::App* conformity_cmd = app.add_subcommand(
+      "conformity", "Solve the ISO 10211 validation cases 1 and 2 (built in) and print the conformity table; "
+                    "exits with 4 if any value is outside the standard's tolerance");
+  conformity_cmd->add_flag("-q,--quiet", conformity_quiet, "Do not print progress");
+
   try {
     app.parse(argc, argv);
   } catch (const CLI::ParseError& e) {
-    return app.exit(e);
+    const int code = app.exit(e);  // prints the help or the usage message
+    return code == 0 ? 0 : 1;
   }
   try {
     if (*solve_cmd) return run_solve(solve);
+    if (*conformity_cmd) {
+      const ConformityReport report = iso10211_conformity(
+          conformity_quiet ? std::function<void(const std::string&)>() : [](const std::string& stage) {
+            fmt::print(stderr, "edgeflux: solving {}…\n", stage);
+          });
+      fmt::print("{}", conformity_text(report));
+      return report.passed() ? 0 : 4;
+    }
   } catch (const InputError& e) {
     fmt::print(stderr, "edgeflux: error: {}\n", e.what());
     return 2;

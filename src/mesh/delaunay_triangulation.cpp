@@ -116,9 +116,11 @@ class GradedCriteria : public virtual CGAL::Delaunay_mesh_criteria_2<Cdt> {
 /// the triangulation never has to construct an intersection point), and the surface end points.
 void insert_section(const CrossSection& section, const std::vector<Segment>& arrangement, Cdt& cdt) {
   for (const Segment& s : arrangement) cdt.insert_constraint(CgalPoint(s.a.x, s.a.y), CgalPoint(s.b.x, s.b.y));
-  // Surface end points become vertices so each boundary edge belongs to one surface only.
+  // Surface end points become vertices so each boundary edge belongs to one surface only; probes
+  // become vertices so their temperature is a nodal value, free of interpolation error.
   for (const Surface& surface : section.surfaces)
     for (Point p : surface.path) cdt.insert(CgalPoint(p.x, p.y));
+  for (const Probe& probe : section.probes) cdt.insert(CgalPoint(probe.at.x, probe.at.y));
 }
 
 double section_extent(const CrossSection& section) {

@@ -54,6 +54,7 @@ ConvergenceLevel level_record(const Calculation& calc, double seconds) {
   level.coupling_2d = calc.heat_loss.field.coupling_2d;
   for (const PsiValue& p : calc.junction.psi) level.psi.push_back(p.psi);
   if (calc.junction.min_interior_surface) level.min_surface_temperature = calc.junction.min_interior_surface->temperature;
+  for (const ProbeReading& p : calc.heat_loss.field.probes) level.probes.push_back(p.temperature);
   return level;
 }
 
@@ -77,6 +78,19 @@ std::vector<char> mark_for_refinement(const Calculation& calc) {
   std::vector<char> marked(n, 0);
   for (int i = 0; i < n_marked; ++i) marked[order[i]] = 1;
   return marked;
+}
+
+/// A boundary node on two fixed-temperature surfaces at different temperatures, if any.
+std::optional<Point> fixed_temperature_jump(const CrossSection& section, const TriMesh& mesh) {
+  std::vector<double> resistance;
+  for (const Surface& s : section.surfaces) resistance.push_back(s.resistance);
+  const auto fixed = fixed_surfaces_per_node(mesh, resistance);
+  for (int i = 0; i < mesh.n_points(); ++i)
+    for (int s : fixed[i])
+      if (section.environments[section.surfaces[s].environment].temperature !=
+          section.environments[section.surfaces[fixed[i][0]].environment].temperature)
+        return mesh.points[i];
+  return std::nullopt;
 }
 
 }  // namespace
@@ -128,6 +142,8 @@ Calculation calculate(const CrossSection& section, const CalculationOptions& opt
   auto start = std::chrono::steady_clock::now();
   TriMesh mesh = mesh_cross_section(section, mesh_options);
   double mesh_seconds = seconds_since(start);
+  const std::optional<Point> jump = fixed_temperature_jump(section, mesh);
+  convergence.singular_heat_flow = jump.has_value();
   Calculation calc;
   for (int level = 0;; ++level) {
     if (mesh.n_points() > options.max_nodes)
@@ -160,11 +176,16 @@ Calculation calculate(const CrossSection& section, const CalculationOptions& opt
       convergence.stop_reason = fmt::format("stopped after {} levels before reaching the target", options.max_levels);
       break;
     }
-    // Refine: adaptively on Delaunay meshes; a grid refines everywhere (density × 1.5).
+    // Refine: adaptively on Delaunay meshes; a grid refines everywhere (density × 1.5). Where the
+    // heat flux is singular the indicator would spend every new node at the singular point and
+    // leave the temperatures elsewhere unchanged level to level, which hides their error: there
+    // every triangle is split into four instead, so the estimates see the whole field converge.
     start = std::chrono::steady_clock::now();
     if (grid) {
       mesh_options.density *= 1.5;
       mesh = mesh_cross_section(section, mesh_options);
+    } else if (convergence.singular_heat_flow) {
+      mesh = subdivide_mesh(calc.mesh);
     } else {
       mesh = refine_mesh(section, calc.mesh, mark_for_refinement(calc));
     }
@@ -176,6 +197,11 @@ Calculation calculate(const CrossSection& section, const CalculationOptions& opt
     }
   }
   calc.convergence = std::move(convergence);
+  if (jump)
+    calc.junction.warnings.push_back(fmt::format(
+        "two fixed temperatures meet at {}: the exact heat flux there is infinite, so the heat flows grow slowly "
+        "without bound as the mesh is refined; they are given for the final mesh only and the refinement targets "
+        "the temperatures", section.format_point(*jump)));
   if (options.adaptive && !calc.convergence.target_met)
     calc.junction.warnings.push_back("the mesh refinement did not reach the accuracy target (" + calc.convergence.stop_reason +
                                      "); the error bars show the accuracy reached");

@@ -78,6 +78,39 @@ nlohmann::ordered_json json_results(const CrossSection& section, const Calculati
                         {"required_frsi", a.required_temperature_factor}, {"governing_requirement", a.governing_requirement},
                         {"passes", a.passes}, {"margin", a.margin}, {"verdict", a.verdict}});
   }
+  const Convergence& conv = calc.convergence;
+  auto estimate = [](const std::optional<ErrorEstimate>& e) {
+    return e ? nlohmann::ordered_json{{"value", e->value}, {"error", e->error}, {"observed_rate", e->observed_rate}}
+             : nlohmann::ordered_json();
+  };
+  nlohmann::ordered_json convergence{{"adaptive", conv.adaptive},
+                                     {"target", {{"coupling_relative", conv.target.coupling_relative},
+                                                 {"psi_w_per_mk", conv.target.psi_absolute},
+                                                 {"temperature_k", conv.target.temperature_absolute}}},
+                                     {"target_met", conv.target_met},
+                                     {"stop_reason", conv.stop_reason},
+                                     {"singular_heat_flow", conv.singular_heat_flow}};
+  auto& levels = convergence["levels"] = nlohmann::ordered_json::array();
+  for (const ConvergenceLevel& l : conv.levels)
+    levels.push_back({{"nodes", l.nodes}, {"seconds", l.seconds}, {"sum_abs_heat_flow_w_per_m", l.sum_abs_heat_flow},
+                      {"coupling_coefficient_2d_w_per_mk", l.coupling_2d ? nlohmann::ordered_json(*l.coupling_2d) : nullptr},
+                      {"min_interior_surface_temperature_c",
+                       l.min_surface_temperature ? nlohmann::ordered_json(*l.min_surface_temperature) : nullptr}});
+  convergence["coupling_coefficient_2d_w_per_mk"] = estimate(conv.coupling_2d);
+  auto& psi_errors = convergence["psi_w_per_mk"] = nlohmann::ordered_json::object();
+  for (std::size_t i = 0; i < junction.psi.size() && i < conv.psi.size(); ++i)
+    psi_errors[system_key(junction.psi[i].system)] = estimate(conv.psi[i]);
+  convergence["min_interior_surface_temperature_c"] = estimate(conv.min_surface_temperature);
+  auto& flow_errors = convergence["heat_flow_w_per_m"] = nlohmann::ordered_json::object();
+  for (std::size_t e = 0; e < conv.heat_flows.size(); ++e) flow_errors[section.environments[e].id] = estimate(conv.heat_flows[e]);
+  if (conv.doubling)
+    convergence["iso10211_doubling_check"] = {{"coarse_nodes", conv.doubling->coarse_nodes},
+                                               {"fine_nodes", conv.doubling->fine_nodes},
+                                               {"coarse_sum_abs_heat_flow_w_per_m", conv.doubling->coarse_sum},
+                                               {"fine_sum_abs_heat_flow_w_per_m", conv.doubling->fine_sum},
+                                               {"relative_change", conv.doubling->relative_change},
+                                               {"passed", conv.doubling->passed}};
+  j["convergence"] = convergence;
   j["warnings"] = junction.warnings;
   j["cautions"] = junction.cautions;
   auto& probes = j["probes"] = nlohmann::ordered_json::array();

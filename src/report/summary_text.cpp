@@ -33,7 +33,16 @@ std::string summary_text(const CrossSection& section, const Calculation& calc) {
   }
   line(fmt::format("  energy balance: Σ Φ = {:.2e} W/m, ratio {:.1e} (ISO 10211 criterion < 1e-4: {})", field.balance.net,
                    field.balance.relative, std::abs(field.balance.relative) < 1e-4 ? "met" : "NOT MET"));
-  if (field.coupling_2d) line(fmt::format("  thermal coupling coefficient L2D = {:.5f} W/(m·K)", *field.coupling_2d));
+  const Convergence& conv = calc.convergence;
+  // The error bar in the value's own decimals, or in one significant digit when it rounds to zero there.
+  auto bar = [](const std::optional<ErrorEstimate>& e, const char* format_digits) {
+    if (!e) return std::string();
+    const std::string fixed = fmt::format(fmt::runtime(std::string("{:") + format_digits + "}"), e->error);
+    if (fixed.find_first_of("123456789") != std::string::npos) return " ± " + fixed;
+    return fmt::format(" ± {:.0e}", e->error);
+  };
+  if (field.coupling_2d)
+    line(fmt::format("  thermal coupling coefficient L2D = {:.5f}{} W/(m·K)", *field.coupling_2d, bar(conv.coupling_2d, ".5f")));
 
   if (!junction.flanking.empty()) {
     line("");
@@ -53,15 +62,20 @@ std::string summary_text(const CrossSection& section, const Calculation& calc) {
   if (!junction.psi.empty()) {
     line("");
     line("Linear thermal transmittance ψ = L2D − Σ U·l");
-    for (const PsiValue& p : junction.psi)
-      line(fmt::format("  {:<26} ψ = {:+.4f} W/(m·K)", fmt::format("{} dimensions:", dimension_system_name(p.system)), p.psi));
+    for (std::size_t i = 0; i < junction.psi.size(); ++i) {
+      const PsiValue& p = junction.psi[i];
+      const std::optional<ErrorEstimate> e = i < conv.psi.size() ? std::optional<ErrorEstimate>(conv.psi[i]) : std::nullopt;
+      line(fmt::format("  {:<29} ψ = {:+.4f}{} W/(m·K)", fmt::format("{} dimensions:", dimension_system_name(p.system)), p.psi,
+                       bar(e, ".4f")));
+    }
   }
 
   line("");
   line("Surface-temperature run (interior Rsi 0.25 m²K/W on opaque surfaces, 0.13 on glazing; ISO 13788)");
   if (junction.min_interior_surface) {
     const SurfaceMinimum& m = *junction.min_interior_surface;
-    line(fmt::format("  θsi,min = {:.2f} °C at {} on surface '{}'", m.temperature, at(m.at), section.surfaces[m.surface].name));
+    line(fmt::format("  θsi,min = {:.2f}{} °C at {} on surface '{}'", m.temperature, bar(conv.min_surface_temperature, ".2f"),
+                     at(m.at), section.surfaces[m.surface].name));
   } else {
     line("  no interior surface (mark the room environment side=\"interior\" to get θsi,min and fRsi)");
   }
@@ -112,6 +126,26 @@ std::string summary_text(const CrossSection& section, const Calculation& calc) {
     for (const ProbeReading& p : field.probes) w = std::max(w, p.name.size());
     for (const ProbeReading& p : field.probes) line(fmt::format("  {:<{}} {:>9.3f} °C  at {}", p.name, w, p.temperature, at(p.at)));
   }
+  line("");
+  line(conv.adaptive ? fmt::format("Mesh convergence (adaptive; targets: L2D {:.2g} %, ψ {:.4f} W/(m·K), θ {:.3f} K) — {}",
+                                   100 * conv.target.coupling_relative, conv.target.psi_absolute,
+                                   conv.target.temperature_absolute, conv.stop_reason)
+                     : "Mesh convergence: fixed mesh, no refinement (no error estimate)");
+  if (conv.levels.size() > 1) {
+    line(fmt::format("  {:>6} {:>9} {:>12} {:>14} {:>9}", "level", "nodes", "Σ|Φ| [W/m]", "θsi,min [°C]", "time [s]"));
+    for (std::size_t i = 0; i < conv.levels.size(); ++i) {
+      const ConvergenceLevel& l = conv.levels[i];
+      line(fmt::format("  {:>6} {:>9} {:>12.5f} {:>14} {:>9.3f}", i + 1, l.nodes, l.sum_abs_heat_flow,
+                       l.min_surface_temperature ? fmt::format("{:.4f}", *l.min_surface_temperature) : "—", l.seconds));
+    }
+  }
+  if (conv.doubling) {
+    const DoublingCheck& d = *conv.doubling;
+    line(fmt::format("  ISO 10211 mesh check: Σ|Φ| {:.5f} W/m on {} nodes vs {:.5f} W/m on {} nodes (≈ twice the "
+                     "subdivisions): change {:.4f} % {} 1 % — {}",
+                     d.coarse_sum, d.coarse_nodes, d.fine_sum, d.fine_nodes, 100 * d.relative_change,
+                     d.passed ? "<" : "≥", d.passed ? "passed" : "FAILED"));
+  }
   if (!junction.warnings.empty()) {
     line("");
     line("WARNINGS");
@@ -124,8 +158,8 @@ std::string summary_text(const CrossSection& section, const Calculation& calc) {
   const SolveInfo& info = calc.heat_loss.info;
   line(fmt::format("Mesh: {} nodes, {} triangles ({} mesher); solver: {}", calc.mesh.n_points(), calc.mesh.n_triangles(),
                    calc.mesh.mesher, info.solver));
-  line(fmt::format("Time: mesh {:.3f} s, solve (both runs) {:.3f} s, results {:.3f} s", calc.timings.mesh_seconds,
-                   calc.timings.solve_seconds, calc.timings.results_seconds));
+  line(fmt::format("Time: {:.3f} s in all; final level: mesh {:.3f} s, solve (both runs) {:.3f} s, results {:.3f} s",
+                   calc.total_seconds, calc.timings.mesh_seconds, calc.timings.solve_seconds, calc.timings.results_seconds));
   return out;
 }
 

@@ -28,7 +28,11 @@ ErrorEstimate richardson_estimate(const std::vector<int>& nodes, const std::vect
   }
   constexpr double cautious_rate = 0.5;
   const double factor = std::pow(n2, -cautious_rate) / (std::pow(n1, -cautious_rate) - std::pow(n2, -cautious_rate));
-  e.error = std::abs(d2) * factor;
+  // Adaptive refinement may leave the neighbourhood of a value almost untouched for a level, so
+  // one small change proves little: the bar uses the larger of the last two changes.
+  double change = std::abs(d2);
+  if (k >= 2) change = std::max(change, std::abs(values[k - 1] - values[k - 2]) * std::pow(n1 / n2, cautious_rate));
+  e.error = change * factor;
   return e;
 }
 
@@ -52,6 +56,10 @@ void estimate_errors(Convergence& c) {
   for (std::size_t e = 0; e < c.levels.back().heat_flows.size(); ++e)
     c.heat_flows.push_back(series([e](const ConvergenceLevel& l) { return l.heat_flows[e]; }));
 
+  c.probes.clear();
+  for (std::size_t p = 0; p < c.levels.back().probes.size(); ++p)
+    c.probes.push_back(series([p](const ConvergenceLevel& l) { return l.probes[p]; }));
+
   // Doubling check: the finest level against the level with about a quarter of its nodes.
   const ConvergenceLevel& fine = c.levels.back();
   std::size_t coarse = 0;
@@ -70,6 +78,10 @@ void estimate_errors(Convergence& c) {
 
 bool meets_target(const Convergence& c) {
   if (c.levels.size() < 3) return false;
+  for (const auto& p : c.probes)
+    if (p.error > c.target.temperature_absolute) return false;
+  if (c.min_surface_temperature && c.min_surface_temperature->error > c.target.temperature_absolute) return false;
+  if (c.singular_heat_flow) return true;
   if (c.coupling_2d) {
     if (c.coupling_2d->error > c.target.coupling_relative * std::abs(c.coupling_2d->value)) return false;
   } else {
@@ -80,7 +92,6 @@ bool meets_target(const Convergence& c) {
   }
   for (const auto& p : c.psi)
     if (p.error > c.target.psi_absolute) return false;
-  if (c.min_surface_temperature && c.min_surface_temperature->error > c.target.temperature_absolute) return false;
   return true;
 }
 

@@ -29,6 +29,7 @@ struct ConvergenceLevel {
   std::optional<double> coupling_2d;    ///< L2D, W/(m·K)
   std::vector<double> psi;              ///< per reported system, W/(m·K)
   std::optional<double> min_surface_temperature;  ///< θsi,min, °C
+  std::vector<double> probes;           ///< probe temperatures, °C (heat-loss run)
   double sum_abs_heat_flow = 0.0;       ///< Σ |Φ|, W/m, for the ISO 10211 doubling check
 };
 
@@ -49,13 +50,18 @@ struct Convergence {
   std::vector<ErrorEstimate> psi;                 ///< same order as JunctionResults::psi
   std::optional<ErrorEstimate> min_surface_temperature;
   std::vector<ErrorEstimate> heat_flows;          ///< per environment
+  std::vector<ErrorEstimate> probes;              ///< per probe
+  /// Two fixed temperatures meet at a boundary point: the exact heat flux is infinite there and the
+  /// heat flows grow without bound as the mesh is refined, so only temperatures are targeted.
+  bool singular_heat_flow = false;
   std::optional<DoublingCheck> doubling;
   bool target_met = false;
   std::string stop_reason;
 };
 
-/// Richardson-type estimate from the last two levels: with Q(N) = Q∞ + C N^−a (N nodes),
-/// Q_last − Q∞ = (Q_last − Q_prev) · N_last^−a / (N_prev^−a − N_last^−a). The bar uses a = 0.5
+/// Richardson-type estimate from the last levels: with Q(N) = Q∞ + C N^−a (N nodes),
+/// Q_last − Q∞ = (Q_last − Q_prev) · N_last^−a / (N_prev^−a − N_last^−a); the change used is the
+/// larger of the last one and the one before (scaled by (N_prev/N_last)^a). The bar uses a = 0.5
 /// (error ∝ h), the slowest rate seen on the reference cases before the asymptotic range, where
 /// fitted rates overshoot and would understate the error (docs/method.md shows the levels).
 /// The rate fitted to the last three levels is reported for information.

@@ -1,0 +1,109 @@
+// Adaptive refinement and its error bars: the bars must contain the difference to converged
+// reference values, refinement must terminate, and the conformity check must pass.
+#include <doctest/doctest.h>
+
+#include <cmath>
+#include <filesystem>
+#include <sys/wait.h>
+
+#include "../test_support.h"
+#include "validation/iso10211_conformity.h"
+
+using namespace edgeflux;
+
+TEST_CASE("Richardson estimate: exact for Q = Q∞ + C N^-0.5, observed rate recovered for N^-1 (exact algebra)") {
+  const std::vector<int> nodes = {1000, 1800, 3300};
+  std::vector<double> slow, fast;
+  for (int n : nodes) slow.push_back(2.0 + 3.0 / std::sqrt(n)), fast.push_back(2.0 + 3.0 / n);
+  const ErrorEstimate e = richardson_estimate(nodes, slow);
+  CHECK(e.error == doctest::Approx(3.0 / std::sqrt(3300.0)).epsilon(1e-9));
+  CHECK(e.observed_rate == doctest::Approx(0.5).epsilon(1e-6));
+  const ErrorEstimate f = richardson_estimate(nodes, fast);
+  CHECK(f.observed_rate == doctest::Approx(1.0).epsilon(1e-6));
+  CHECK(f.error >= 3.0 / 3300.0);  // the cautious rate overstates a fast-converging error, never understates
+}
+
+TEST_CASE("Case 2: the heat-flow error bar contains the difference to the converged 9.4915 W/m, at two targets") {
+  // DOMAIN.md §6: converged Φ = 9.4915 W/m from two independent fine-mesh calculations (±1e-4).
+  for (double target : {1e-3, 1e-4}) {
+    CalculationOptions options;
+    options.target.coupling_relative = target;
+    const Calculation calc = test::solve_file("tests/reference/iso10211_case2.xml", options);
+    REQUIRE(calc.convergence.target_met);
+    REQUIRE(calc.convergence.coupling_2d);
+    const double flow_bar = calc.convergence.coupling_2d->error * 20.0;  // L2D × ΔT
+    const double flow = calc.heat_loss.field.environments[0].heat_flow;
+    CAPTURE(target);
+    CAPTURE(flow);
+    CAPTURE(flow_bar);
+    CHECK(std::abs(flow - 9.4915) <= flow_bar + 1e-4);
+    CHECK(flow_bar <= target * 9.4915 * 1.0001);  // and the bar meets the target it claims
+  }
+}
+
+TEST_CASE("external corner: the error bar of S contains the difference to the fine-mesh 0.5587 ± 0.0003") {
+  const std::string text = R"(<edgeflux-detail format="1" units="m">
+  <materials><material id="m" conductivity="1" source="test value"/></materials>
+  <regions><polygon material="m" points="0,0 1.5,0 1.5,0.25 0.25,0.25 0.25,1.5 0,1.5"/></regions>
+  <environments><environment id="warm" temperature="1"/><environment id="cold" temperature="0"/></environments>
+  <boundaries>
+    <fixed-temperature environment="warm" path="1.5,0.25 0.25,0.25 0.25,1.5"/>
+    <fixed-temperature environment="cold" path="0,1.5 0,0 1.5,0"/>
+  </boundaries></edgeflux-detail>)";
+  for (double target : {1e-3, 1e-4}) {
+    CalculationOptions options;
+    options.target.coupling_relative = target;
+    const Calculation calc = calculate(parse_detail_text(text, "corner.xml"), options);
+    REQUIRE(calc.convergence.target_met);
+    const double shape = calc.heat_loss.field.environments[0].heat_flow - 10.0;  // λ = 1, ΔT = 1, a/t = b/t = 5
+    const double bar = calc.convergence.coupling_2d->error;
+    CAPTURE(target);
+    CAPTURE(shape);
+    CAPTURE(bar);
+    CHECK(std::abs(shape - 0.5587) <= bar + 0.0003);  // DOMAIN.md §6 fine-mesh value and its uncertainty
+  }
+}
+
+TEST_CASE("Case 1: each probe's error bar contains its difference to the series solution") {
+  const Calculation calc = test::solve_file("tests/reference/iso10211_case1.xml");
+  REQUIRE(calc.convergence.target_met);
+  CHECK(calc.convergence.singular_heat_flow);  // 20 °C meets 0 °C at the top corner
+  REQUIRE(calc.convergence.probes.size() == calc.heat_loss.field.probes.size());
+  for (std::size_t i = 0; i < calc.convergence.probes.size(); ++i) {
+    const ProbeReading& p = calc.heat_loss.field.probes[i];
+    const double exact = iso10211_case1_series(p.at.x, p.at.y, 2.0);  // Incropera & DeWitt series
+    CAPTURE(p.name);
+    CHECK(std::abs(p.temperature - exact) <= calc.convergence.probes[i].error + 1e-6);
+  }
+}
+
+TEST_CASE("refinement terminates on every shipped detail, example and reference file") {
+  namespace fs = std::filesystem;
+  for (const char* folder : {"examples", "tests/reference", "details"}) {
+    const fs::path dir = test::source_path(folder);
+    if (!fs::exists(dir)) continue;
+    for (const auto& entry : fs::directory_iterator(dir)) {
+      if (entry.path().extension() != ".xml") continue;
+      CAPTURE(entry.path().string());
+      const Calculation calc = calculate(read_detail_file(entry.path().string()), {});
+      CHECK(calc.convergence.target_met);
+      CHECK(calc.convergence.levels.size() >= 3);
+      CHECK(calc.mesh.n_points() < 2'000'000);
+    }
+  }
+}
+
+TEST_CASE("the conformity subcommand passes and names the classification (ISO 10211 Annex C, Cases 1 and 2)") {
+  const std::string command = std::string(EDGEFLUX_BINARY) + " conformity -q";
+  FILE* pipe = popen(command.c_str(), "r");
+  std::string output;
+  char buffer[4096];
+  while (std::size_t n = fread(buffer, 1, sizeof buffer, pipe)) output.append(buffer, n);
+  const int status = pclose(pipe);
+  CHECK(WEXITSTATUS(status) == 0);
+  CHECK(output.find("0 outside tolerance") != std::string::npos);
+  CHECK(output.find("high-precision method") != std::string::npos);
+  const ConformityReport report = iso10211_conformity();
+  CHECK(report.rows.size() == 38);  // 28 points of Case 1, 9 points and the heat flow of Case 2
+  CHECK(report.passed());
+}
