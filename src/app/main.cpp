@@ -5,14 +5,19 @@
 #include <CLI/CLI.hpp>
 #include <fmt/format.h>
 
+#include <cmath>
 #include <cstdio>
+#include <cstdlib>
 #include <iostream>
 
 #include "core/atomic_file.h"
 #include "core/error.h"
+#include "input/material_library.h"
 #include "input/read_detail_file.h"
 #include "pipeline/calculate.h"
+#include "pipeline/variants.h"
 #include "report/json_results.h"
+#include "report/variants_page.h"
 #include "report/output_files.h"
 #include "report/summary_text.h"
 #include "validation/iso10211_conformity.h"
@@ -29,12 +34,28 @@ struct SolveArgs {
   std::string solver = "cholesky";
   bool quiet = false;
   bool fixed_mesh = false;
+  std::vector<std::string> parameter_settings;  ///< "name=value"
   AccuracyTarget target;
   OutputRequest outputs;  ///< --report, --svg-dir, --png-dir, --vtu, --surface-csv
 };
 
+/// "name=value" pairs from --set into overrides; a malformed pair is a usage error of the input.
+ParameterOverrides parse_settings(const std::vector<std::string>& settings) {
+  ParameterOverrides overrides;
+  for (const std::string& setting : settings) {
+    const auto eq = setting.find('=');
+    char* end = nullptr;
+    const double value = eq == std::string::npos ? 0.0 : std::strtod(setting.c_str() + eq + 1, &end);
+    if (eq == std::string::npos || eq == 0 || end == setting.c_str() + eq + 1 || *end != '\0' || !std::isfinite(value))
+      throw_input_error({"command line", 0}, "--set " + setting, "is not of the form name=number",
+                        "write e.g. --set insulation_thickness=160");
+    overrides[setting.substr(0, eq)] = value;
+  }
+  return overrides;
+}
+
 int run_solve(const SolveArgs& args) {
-  const CrossSection section = read_detail_file(args.detail_file);
+  const CrossSection section = read_detail_file(args.detail_file, parse_settings(args.parameter_settings));
   CalculationOptions options;
   if (args.density > 0.0) options.density = args.density;
   if (args.mesher == "grid") options.mesher = MeshSettings::Mesher::grid;
@@ -56,6 +77,61 @@ int run_solve(const SolveArgs& args) {
   write_output_files(files);
   for (const OutputFile& f : files) fmt::print("Written: {}\n", f.path);
   return 0;
+}
+
+/// "name=from:to:steps" into a range.
+ParameterRange parse_range(const std::string& text) {
+  ParameterRange range;
+  const auto eq = text.find('=');
+  bool ok = eq != std::string::npos && eq > 0;
+  if (ok) {
+    range.name = text.substr(0, eq);
+    ok = std::sscanf(text.c_str() + eq + 1, "%lf:%lf:%d", &range.from, &range.to, &range.steps) == 3 &&
+         std::isfinite(range.from) && std::isfinite(range.to) && range.steps >= 2 && range.steps <= 1000;
+  }
+  if (!ok)
+    throw_input_error({"command line", 0}, "--vary " + text, "is not of the form name=from:to:steps (2 ≤ steps ≤ 1000)",
+                      "write e.g. --vary insulation_thickness=80:240:5");
+  return range;
+}
+
+/// Prints the variants as a table and writes the CSV and the page, all built before any is written.
+int finish_variants(const std::string& heading, const std::vector<VariantSummary>& variants,
+                    const std::vector<std::string>& parameter_names, const std::string& csv_file,
+                    const std::string& page_file) {
+  fmt::print("{}\n\n", heading);
+  fmt::print("  {:<40} {:>20} {:>20} {:>8} {:>9}  {}\n", "variant", "ψ external", "ψ internal", "fRsi", "required", "verdict");
+  int failed = 0;
+  for (const VariantSummary& v : variants) {
+    if (!v.error.empty()) {
+      fmt::print("  {:<40} not calculated: {}\n", v.label, v.error);
+      ++failed;
+      continue;
+    }
+    auto psi = [&](DimensionSystem s) {
+      for (std::size_t i = 0; i < v.psi.size(); ++i)
+        if (v.psi[i].system == s) return fmt::format("{:+.4f} ± {:.4f}", v.psi[i].psi, v.psi_error[i]);
+      return std::string("—");
+    };
+    fmt::print("  {:<40} {:>20} {:>20} {:>8} {:>9}  {}\n", v.label, psi(DimensionSystem::external), psi(DimensionSystem::internal),
+               v.temperature_factor ? fmt::format("{:.3f}", *v.temperature_factor) : "—",
+               v.required_temperature_factor ? fmt::format("{:.3f}", *v.required_temperature_factor) : "—",
+               v.passes ? (*v.passes ? "passes" : "FAILS") : "—");
+  }
+  std::vector<OutputFile> files;
+  if (!csv_file.empty()) files.push_back({csv_file, variants_csv(variants, parameter_names)});
+  if (!page_file.empty()) files.push_back({page_file, variants_page(heading, variants, parameter_names)});
+  check_output_paths(files);
+  write_output_files(files);
+  for (const OutputFile& f : files) fmt::print("Written: {}\n", f.path);
+  fmt::print("\nResults depend on the inputs and modelling choices; local building codes and a qualified professional "
+             "decide compliance.\n");
+  return failed == 0 ? 0 : 2;
+}
+
+std::function<void(int, int)> variant_progress(bool quiet) {
+  if (quiet) return {};
+  return [](int done, int total) { fmt::print(stderr, "\redgeflux: {}/{} variants solved{}", done, total, done == total ? "\n" : ""); };
 }
 
 }  // namespace
@@ -91,8 +167,38 @@ int main(int argc, char** argv) {
   solve_cmd->add_option("--temperature-target", solve.target.temperature_absolute,
                         "Accuracy asked of the minimum interior surface temperature in K, default 0.01")
       ->check(CLI::Range(1e-6, 1.0));
+  solve_cmd->add_option("--set", solve.parameter_settings,
+                        "Override a <parameter> of the detail file, e.g. --set insulation_thickness=160 (repeatable)");
   solve_cmd->add_flag("--fixed-mesh", solve.fixed_mesh,
                       "Solve once on the mesh of --density instead of refining to the accuracy targets");
+
+  std::string material_search;
+  CLI::App* materials_cmd = app.add_subcommand(
+      "materials", "List the built-in material library (λ, density, source); give a word to search ids, categories and sources");
+  materials_cmd->add_option("search", material_search, "Text to look for, e.g. concrete or insulation");
+
+  struct VariantArgs {
+    std::vector<std::string> inputs, ranges;
+    std::string csv, page;
+    int jobs = 0;
+    bool quiet = false;
+    AccuracyTarget target;
+  } sweep, compare;
+  CLI::App* sweep_cmd = app.add_subcommand(
+      "sweep", "Solve a detail over a range of one or two parameters in parallel; table, CSV and a page with ψ and fRsi plots");
+  sweep_cmd->add_option("detail", sweep.inputs, "Detail file with <parameter>s")->required()->expected(1);
+  sweep_cmd->add_option("--vary", sweep.ranges, "name=from:to:steps (once or twice; the first is the plots' x axis)")
+      ->required()->expected(1, 2);
+  CLI::App* compare_cmd = app.add_subcommand("compare", "Solve two or more details in parallel and put them side by side");
+  compare_cmd->add_option("details", compare.inputs, "Detail files")->required()->expected(2, 1000);
+  for (auto [cmd, args] : {std::pair{sweep_cmd, &sweep}, std::pair{compare_cmd, &compare}}) {
+    cmd->add_option("--csv", args->csv, "Write the table as CSV to this file");
+    cmd->add_option("--page", args->page, "Write an HTML page with the table (and plots for sweeps) to this file");
+    cmd->add_option("--jobs", args->jobs, "Parallel calculations (default: all cores)")->check(CLI::Range(0, 256));
+    cmd->add_option("--target", args->target.coupling_relative, "Relative accuracy asked of L2D, default 0.001")
+        ->check(CLI::Range(1e-6, 0.1));
+    cmd->add_flag("-q,--quiet", args->quiet, "Do not print progress");
+  }
 
   bool conformity_quiet = false;
   CLI::App* conformity_cmd = app.add_subcommand(
@@ -108,6 +214,35 @@ int main(int argc, char** argv) {
   }
   try {
     if (*solve_cmd) return run_solve(solve);
+    if (*sweep_cmd || *compare_cmd) {
+      const bool is_sweep = sweep_cmd->parsed();
+      VariantArgs& args = is_sweep ? sweep : compare;
+      CalculationOptions options;
+      options.target = args.target;
+      if (is_sweep) {
+        std::vector<ParameterRange> ranges;
+        for (const std::string& r : args.ranges) ranges.push_back(parse_range(r));
+        read_detail_file(args.inputs[0]);  // a broken file is reported once, before any variant runs
+        std::vector<std::string> names;
+        for (const ParameterRange& r : ranges) names.push_back(r.name);
+        const auto variants = run_sweep(args.inputs[0], ranges, options, args.jobs, variant_progress(args.quiet));
+        return finish_variants("Parameter sweep of " + args.inputs[0], variants, names, args.csv, args.page);
+      }
+      for (const std::string& f : args.inputs) read_detail_file(f);
+      const auto variants = run_comparison(args.inputs, options, args.jobs, variant_progress(args.quiet));
+      return finish_variants("Comparison of " + std::to_string(args.inputs.size()) + " details", variants, {}, args.csv, args.page);
+    }
+    if (*materials_cmd) {
+      const auto found = search_material_library(material_search);
+      fmt::print("{:<28} {:>10} {:>9}  {:<10} {}\n", "id", "λ [W/mK]", "ρ [kg/m³]", "basis", "source");
+      for (const LibraryMaterial& m : found)
+        fmt::print("{:<28} {:>10.3f} {:>9}  {:<10} {}\n", m.id, m.conductivity,
+                   m.density ? fmt::format("{:.0f}", *m.density) : "—", m.basis, m.source);
+      fmt::print("{} of {} entries. Use one in a detail file as <material id=\"...\" library=\"ENTRY\"/>; "
+                 "\"typical\" values must be replaced by the product's declared value.\n",
+                 found.size(), material_library().size());
+      return found.empty() ? 2 : 0;
+    }
     if (*conformity_cmd) {
       const ConformityReport report = iso10211_conformity(
           conformity_quiet ? std::function<void(const std::string&)>() : [](const std::string& stage) {

@@ -16,6 +16,7 @@ struct Material {
   std::string id;
   double conductivity = 0.0;  ///< λ, W/(m·K), > 0
   std::string source;         ///< where the value comes from (standard and table, or "declared")
+  std::string library_id;     ///< entry of the material library it was taken from, if any
   SourceLocation where;
 };
 
@@ -90,6 +91,15 @@ struct Climate {
   SourceLocation where;
 };
 
+/// A named number of the detail file, usable in {expressions} of later numeric attributes.
+struct Parameter {
+  std::string name;
+  double value = 0.0;       ///< in the file's unit system as written (lengths in the file's unit)
+  std::string description;
+  bool overridden = false;  ///< set from the command line
+  SourceLocation where;
+};
+
 struct MeshSettings {
   enum class Mesher { automatic, grid, delaunay };
   Mesher mesher = Mesher::automatic;
@@ -102,6 +112,7 @@ struct CrossSection {
   std::string file;          ///< path the section was read from
   std::string unit = "mm";   ///< the unit the user wrote coordinates in (for messages)
   double metres_per_unit = 0.001;
+  std::vector<Parameter> parameters;
   std::vector<Material> materials;
   std::vector<Region> regions;
   std::vector<Environment> environments;

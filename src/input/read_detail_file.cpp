@@ -14,6 +14,11 @@
 #include <sstream>
 
 #include "geometry/validate_cross_section.h"
+#include <muParser.h>
+
+#include <memory>
+
+#include "input/material_library.h"
 #include "physics/moisture_verdict.h"
 #include "physics/surface_resistance.h"
 
@@ -24,7 +29,7 @@ using tinyxml2::XMLElement;
 
 class Reader {
  public:
-  explicit Reader(std::string file) : file_(std::move(file)) {}
+  Reader(std::string file, const ParameterOverrides& overrides) : file_(std::move(file)), overrides_(overrides) {}
 
   CrossSection read(const std::string& text) {
     tinyxml2::XMLDocument doc;
@@ -53,8 +58,20 @@ class Reader {
                         "use units=\"mm\", \"cm\" or \"m\"");
     section_.unit = units;
 
+    // Parameters come first wherever they stand, so every other block may use them.
+    for (const XMLElement* e = root->FirstChildElement("parameters"); e; e = e->NextSiblingElement("parameters"))
+      for_children(e, "parameter", [&](const XMLElement* p) { read_parameter(p); });
+    for (const auto& [name, value] : overrides_) {
+      const auto it = std::find_if(section_.parameters.begin(), section_.parameters.end(),
+                                   [&](const Parameter& p) { return p.name == name; });
+      if (it == section_.parameters.end())
+        throw_input_error({file_, 0}, fmt::format("parameter '{}'", name), "is set on the command line but not defined in the file",
+                          fmt::format("use one of: {}", parameter_names()));
+    }
+
     for (const XMLElement* e = root->FirstChildElement(); e; e = e->NextSiblingElement()) {
       const std::string name = e->Name();
+      if (name == "parameters") continue;
       if (name == "title") section_.title = element_text(e);
       else if (name == "notes") section_.notes = element_text(e);
       else if (name == "materials") for_children(e, "material", [&](const XMLElement* m) { read_material(m); });
@@ -67,7 +84,7 @@ class Reader {
       else if (name == "mesh") read_mesh(e);
       else
         throw_input_error(where(e), fmt::format("<{}>", name), "this element is not part of the detail format",
-                          "use title, notes, materials, regions, environments, boundaries, probes, "
+                          "use title, notes, parameters, materials, regions, environments, boundaries, probes, "
                           "flanking-elements, climate or mesh (see docs/detail-format.md)");
     }
     resolve_references();
@@ -77,7 +94,78 @@ class Reader {
 
  private:
   std::string file_;
+  ParameterOverrides overrides_;
   CrossSection section_;
+  // muparser keeps pointers to the variables: stable storage, one slot per parameter.
+  std::vector<std::unique_ptr<double>> parameter_values_;
+
+  std::string parameter_names() const {
+    std::string names;
+    for (const Parameter& p : section_.parameters) names += (names.empty() ? "" : ", ") + p.name;
+    return names.empty() ? "(none defined)" : names;
+  }
+
+  /// Value of one expression over the parameters defined so far.
+  double evaluate(const std::string& expression, const XMLElement* e, const std::string& what) const {
+    try {
+      mu::Parser parser;
+      for (std::size_t i = 0; i < section_.parameters.size(); ++i)
+        parser.DefineVar(section_.parameters[i].name, parameter_values_[i].get());
+      parser.SetExpr(expression);
+      const double value = parser.Eval();
+      if (!std::isfinite(value))
+        throw_input_error(where(e), describe(e), fmt::format("{}: the expression \"{}\" is not finite", what, expression),
+                          "check for a division by zero or a logarithm of a non-positive value");
+      return value;
+    } catch (const mu::Parser::exception_type& error) {
+      std::string reason = error.GetMsg();
+      while (!reason.empty() && (reason.back() == '.' || reason.back() == ' ')) reason.pop_back();
+      throw_input_error(where(e), describe(e),
+                        fmt::format("{}: cannot evaluate \"{}\": {}", what, expression, reason),
+                        fmt::format("use numbers, + - * / ^, parentheses, functions such as min(a,b), sqrt(x), and "
+                                    "the parameters defined before this line: {}", parameter_names()));
+    }
+  }
+
+  /// Replaces every {expression} in a numeric attribute by its value.
+  std::string expand(const std::string& text, const XMLElement* e, const std::string& what) const {
+    std::string out;
+    std::size_t at = 0;
+    while (true) {
+      const std::size_t open = text.find('{', at);
+      if (open == std::string::npos) break;
+      const std::size_t close = text.find('}', open);
+      if (close == std::string::npos)
+        throw_input_error(where(e), describe(e), fmt::format("{}: \"{{\" without a closing \"}}\"", what),
+                          "write an expression as {name} or {2*name + 10}");
+      out += text.substr(at, open - at);
+      out += fmt::format("{:.17g}", evaluate(text.substr(open + 1, close - open - 1), e, what));
+      at = close + 1;
+    }
+    return out + text.substr(at);
+  }
+
+  void read_parameter(const XMLElement* e) {
+    allow_attributes(e, {"name", "value", "description"});
+    Parameter p;
+    p.name = required_text(e, "name");
+    p.where = where(e);
+    const bool valid_name = std::isalpha(static_cast<unsigned char>(p.name[0])) &&
+                            std::all_of(p.name.begin(), p.name.end(), [](unsigned char c) { return std::isalnum(c) || c == '_'; });
+    if (!valid_name)
+      throw_input_error(p.where, describe(e), fmt::format("\"{}\" is not a valid parameter name", p.name),
+                        "use letters, digits and _ , starting with a letter, e.g. insulation_thickness");
+    for (const Parameter& other : section_.parameters)
+      if (other.name == p.name)
+        throw_input_error(p.where, describe(e), fmt::format("parameter \"{}\" is already defined on line {}", p.name, other.where.line),
+                          "give each parameter its own name");
+    const std::string text = required_text(e, "value");
+    p.value = evaluate(text, e, "attribute \"value\"");
+    if (const auto it = overrides_.find(p.name); it != overrides_.end()) p.value = it->second, p.overridden = true;
+    p.description = optional_text(e, "description", "");
+    section_.parameters.push_back(p);
+    parameter_values_.push_back(std::make_unique<double>(p.value));
+  }
   // References are resolved after reading so the order of the blocks in the file does not matter.
   struct PendingRef { std::size_t* target; std::string id; SourceLocation where; std::string object; };
   std::vector<PendingRef> material_refs_, environment_refs_;
@@ -134,7 +222,8 @@ class Reader {
   }
 
   /// Parses one finite number; `what` names it in the message.
-  double parse_number(const std::string& text, const XMLElement* e, const std::string& what) const {
+  double parse_number(const std::string& raw, const XMLElement* e, const std::string& what) const {
+    const std::string text = raw.find('{') == std::string::npos ? raw : expand(raw, e, what);
     const char* begin = text.data();
     const char* end = begin + text.size();
     while (begin < end && std::isspace(static_cast<unsigned char>(*begin))) ++begin;
@@ -157,7 +246,7 @@ class Reader {
 
   /// "x,y x,y ..." in the file's unit → metres.
   std::vector<Point> parse_points(const XMLElement* e, const char* attribute) const {
-    std::string text = required_text(e, attribute);
+    std::string text = expand(required_text(e, attribute), e, fmt::format("attribute \"{}\"", attribute));
     std::replace(text.begin(), text.end(), ',', ' ');
     std::replace(text.begin(), text.end(), ';', ' ');
     std::istringstream in(text);
@@ -183,12 +272,34 @@ class Reader {
   }
 
   void read_material(const XMLElement* e) {
-    allow_attributes(e, {"id", "conductivity", "source"});
+    allow_attributes(e, {"id", "conductivity", "source", "library"});
     Material m;
     m.id = required_text(e, "id");
     m.where = where(e);
-    m.conductivity = required_number(e, "conductivity");
-    m.source = optional_text(e, "source", "not stated");
+    if (const char* entry = e->Attribute("library")) {
+      const LibraryMaterial* found = find_library_material(entry);
+      if (found == nullptr) {
+        std::string close;
+        for (const LibraryMaterial& l : search_material_library(std::string(entry).substr(0, 4)))
+          close += (close.empty() ? "" : ", ") + l.id;
+        throw_input_error(m.where, describe(e), fmt::format("\"{}\" is not in the material library", entry),
+                          close.empty() ? "run 'edgeflux materials' to list the library"
+                                        : fmt::format("did you mean one of: {}? ('edgeflux materials' lists all)", close));
+      }
+      m.library_id = found->id;
+      m.conductivity = found->conductivity;
+      m.source = found->source;
+      if (e->Attribute("conductivity")) {
+        m.conductivity = required_number(e, "conductivity");
+        m.source = optional_text(e, "source", "") ;
+        if (m.source.empty()) m.source = fmt::format("λ set in the detail file (library entry {}: {})", found->id, found->source);
+      } else if (e->Attribute("source")) {
+        m.source = required_text(e, "source");
+      }
+    } else {
+      m.conductivity = required_number(e, "conductivity");
+      m.source = optional_text(e, "source", "not stated");
+    }
     if (!(m.conductivity > 0.0))
       throw_input_error(m.where, describe(e), fmt::format("conductivity {} W/(m·K) is not positive", m.conductivity),
                         "give the design thermal conductivity λ in W/(m·K), greater than zero");
@@ -254,7 +365,8 @@ class Reader {
 
   double parse_resistance(const XMLElement* e, const std::string& text, const char* attribute) const {
     if (auto preset = surface_resistance_preset(text)) return *preset;
-    if (!text.empty() && (std::isdigit(static_cast<unsigned char>(text[0])) || text[0] == '.' || text[0] == '-' || text[0] == '+')) {
+    if (!text.empty() && (std::isdigit(static_cast<unsigned char>(text[0])) || text[0] == '.' || text[0] == '-' ||
+                          text[0] == '+' || text[0] == '{')) {
       const double value = parse_number(text, e, fmt::format("attribute \"{}\"", attribute));
       if (value < 0.0)
         throw_input_error(where(e), describe(e), fmt::format("surface resistance {} m²K/W is negative", value),
@@ -490,18 +602,18 @@ class Reader {
 
 }  // namespace
 
-CrossSection parse_detail_text(const std::string& text, const std::string& file_name) {
-  return Reader(file_name).read(text);
+CrossSection parse_detail_text(const std::string& text, const std::string& file_name, const ParameterOverrides& overrides) {
+  return Reader(file_name, overrides).read(text);
 }
 
-CrossSection read_detail_file(const std::string& path) {
+CrossSection read_detail_file(const std::string& path, const ParameterOverrides& overrides) {
   std::ifstream in(path, std::ios::binary);
   if (!in)
     throw_input_error({path, 0}, "detail file", "cannot be opened (missing or unreadable)",
                       "check the path; run 'edgeflux solve --help' for usage");
   std::ostringstream text;
   text << in.rdbuf();
-  return parse_detail_text(text.str(), path);
+  return parse_detail_text(text.str(), path, overrides);
 }
 
 }  // namespace edgeflux

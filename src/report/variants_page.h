@@ -1,0 +1,20 @@
+// Sweeps and comparisons as CSV and as one self-contained HTML page with plots of ψ and fRsi.
+#pragma once
+
+#include <string>
+#include <vector>
+
+#include "pipeline/variants.h"
+
+namespace edgeflux {
+
+/// One row per variant: the varied parameters, L2D, ψ per system with error bars, θsi,min, fRsi,
+/// required fRsi, verdict, nodes, error. `parameter_names` fixes the parameter columns.
+std::string variants_csv(const std::vector<VariantSummary>& variants, const std::vector<std::string>& parameter_names);
+
+/// The page: a table with every variant, and for sweeps line plots of ψ and fRsi against the first
+/// parameter (one line per value of the second), with the required fRsi drawn. Cautions included.
+std::string variants_page(const std::string& heading, const std::vector<VariantSummary>& variants,
+                          const std::vector<std::string>& parameter_names);
+
+}  // namespace edgeflux
