@@ -123,6 +123,7 @@ struct CrossSection {
   SourceLocation flanking_where;                   ///< the <flanking-elements> element
   std::optional<Climate> climate;
   MeshSettings mesh;
+  std::vector<std::string> warnings;  ///< found while reading and checking (snapped points, odd sizes)
 
   /// "(x, y) mm" in the user's unit, for messages.
   std::string format_point(Point p) const {

@@ -47,6 +47,51 @@ void check_region(const CrossSection& section, Region& region) {
   if (area < 0.0) std::reverse(region.outline.begin(), region.outline.end());
 }
 
+/// Points of different regions (or of a region and a surface path) closer than the snapping
+/// tolerance but not equal are almost certainly meant to coincide: a hair-thin gap or overlap would
+/// create a sliver the mesh must resolve and a spurious notch or bridge. They are moved onto the
+/// earlier point, and the user is told.
+void snap_nearly_coincident_points(CrossSection& section, double tolerance) {
+  std::vector<Point> anchors;
+  int moved = 0;
+  Point first_from{}, first_to{};
+  auto snap = [&](Point& p) {
+    for (const Point& a : anchors) {
+      const double d = distance(a, p);
+      if (d == 0.0) return;
+      if (d <= tolerance) {
+        if (moved++ == 0) first_from = p, first_to = a;
+        p = a;
+        return;
+      }
+    }
+    anchors.push_back(p);
+  };
+  for (Region& region : section.regions)
+    for (Point& p : region.outline) snap(p);
+  for (Surface& surface : section.surfaces)
+    for (Point& p : surface.path) snap(p);
+  if (moved > 0)
+    section.warnings.push_back(fmt::format(
+        "{} point{} closer than {:.3g} mm to another point {} moved onto it (first: {} to {}); check that these "
+        "points were meant to coincide", moved, moved == 1 ? "" : "s", tolerance * 1000, moved == 1 ? "was" : "were",
+        section.format_point(first_from), section.format_point(first_to)));
+}
+
+void warn_about_sizes(CrossSection& section) {
+  double x0 = 1e300, x1 = -1e300, y0 = 1e300, y1 = -1e300;
+  for (const Region& r : section.regions)
+    for (Point p : r.outline) x0 = std::min(x0, p.x), x1 = std::max(x1, p.x), y0 = std::min(y0, p.y), y1 = std::max(y1, p.y);
+  const double extent = std::max(x1 - x0, y1 - y0);
+  // A junction model with ISO 10211 cut-off planes spans about 1–10 m; ground floors up to ~30 m.
+  if (extent > 50.0)
+    section.warnings.push_back(fmt::format("the section is {:.4g} m across, which is implausible for a junction: were the "
+                                           "coordinates meant in mm (units=\"mm\")?", extent));
+  if (extent < 0.05)
+    section.warnings.push_back(fmt::format("the section is only {:.4g} mm across: were the coordinates meant in metres "
+                                           "(units=\"m\")? Cut-off planes belong at least 1 m from the junction", extent * 1000));
+}
+
 }  // namespace
 
 void validate_cross_section(CrossSection& section) {
@@ -55,6 +100,10 @@ void validate_cross_section(CrossSection& section) {
     throw_input_error(file_only, "<regions>", "the section has no regions",
                       "describe the materials of the section as <rectangle> or <polygon> inside <regions>");
   for (Region& region : section.regions) check_region(section, region);
+  warn_about_sizes(section);
+  // Snapping tolerance: 0.01 mm, far below any real layer, far above rounding in coordinates.
+  snap_nearly_coincident_points(section, 1e-5);
+  for (Region& region : section.regions) check_region(section, region);  // snapping may fold a region
 
   if (section.environments.empty())
     throw_input_error(file_only, "<environments>", "the section has no environment",

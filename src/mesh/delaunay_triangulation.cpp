@@ -11,6 +11,8 @@
 #include <CGAL/Triangulation_vertex_base_with_info_2.h>
 
 #include <algorithm>
+#include <fmt/format.h>
+#include <tuple>
 #include <unordered_map>
 #include <cmath>
 
@@ -150,9 +152,46 @@ std::vector<CgalPoint> domain_seeds(const CrossSection& section, const Cdt& cdt)
 
 RawTriangulation painted_triangulation(const CrossSection& section, Cdt& cdt);
 
+/// The smallest angle between two region edges that meet at a vertex, and where (degrees, point).
+std::pair<double, Point> smallest_input_angle(const std::vector<Segment>& arrangement) {
+  std::vector<std::pair<Point, Point>> ends;  // (vertex, direction)
+  for (const Segment& s : arrangement) ends.push_back({s.a, s.b - s.a}), ends.push_back({s.b, s.a - s.b});
+  std::sort(ends.begin(), ends.end(), [](const auto& p, const auto& q) { return std::tie(p.first.x, p.first.y) < std::tie(q.first.x, q.first.y); });
+  double best = 180.0;
+  Point where{};
+  for (std::size_t i = 0; i < ends.size(); ++i)
+    for (std::size_t j = i + 1; j < ends.size() && ends[j].first.x == ends[i].first.x && ends[j].first.y == ends[i].first.y; ++j) {
+      const Point u = ends[i].second, v = ends[j].second;
+      const double angle = std::atan2(std::abs(cross(u, v)), dot(u, v)) * 180.0 / 3.141592653589793;
+      if (angle < best) best = angle, where = ends[i].first;
+    }
+  return {best, where};
+}
+
+/// Runs Delaunay refinement step by step so a pathological input (very small angles between region
+/// edges, which can make refinement cascade without end) stops at `max_vertices` with a clear
+/// message instead of running out of memory.
+template <class Criteria>
+void refine_guarded(const CrossSection& section, Cdt& cdt, const std::vector<CgalPoint>& seeds, const Criteria& criteria,
+                    const std::vector<Segment>& arrangement, std::size_t max_vertices) {
+  CGAL::Delaunay_mesher_2<Cdt, Criteria> mesher(cdt, criteria);
+  mesher.set_seeds(seeds.begin(), seeds.end(), true);
+  mesher.init();
+  while (mesher.step_by_step_refine_mesh()) {
+    if (cdt.number_of_vertices() <= max_vertices) continue;
+    const auto [angle, at] = smallest_input_angle(arrangement);
+    throw_input_error({section.file, 0}, "mesh",
+                      fmt::format("the mesher stopped at {} nodes without reaching its quality bound; the smallest angle "
+                                  "between region edges is {:.2f}° at {}", cdt.number_of_vertices(), angle, section.format_point(at)),
+                      "avoid sliver-shaped regions and near-tangent edges (snap nearly coincident points together), or "
+                      "lower the density");
+  }
+}
+
 }  // namespace
 
-RawTriangulation delaunay_through_points(const CrossSection& section, const std::vector<Point>& points) {
+RawTriangulation delaunay_through_points(const CrossSection& section, const std::vector<Point>& points,
+                                         std::size_t max_vertices) {
   Cdt cdt;
   const std::vector<Segment> arrangement = arranged_segments(section);
   insert_section(section, arrangement, cdt);
@@ -170,13 +209,14 @@ RawTriangulation delaunay_through_points(const CrossSection& section, const std:
     if (!near_constraint) inside.emplace_back(p.x, p.y);
   }
   cdt.insert(inside.begin(), inside.end());
-  CGAL::refine_Delaunay_mesh_2(cdt, seeds.begin(), seeds.end(), CGAL::Delaunay_mesh_criteria_2<Cdt>(0.125), true);
+  refine_guarded(section, cdt, seeds, CGAL::Delaunay_mesh_criteria_2<Cdt>(0.125), arrangement, max_vertices);
   return painted_triangulation(section, cdt);
 }
 
 RawTriangulation delaunay_triangulation(const CrossSection& section, const MeshOptions& options) {
   Cdt cdt;
-  insert_section(section, arranged_segments(section), cdt);
+  const std::vector<Segment> arrangement = arranged_segments(section);
+  insert_section(section, arrangement, cdt);
   double x_min = 1e300, y_min = 1e300;
   for (const Region& region : section.regions)
     for (Point p : region.outline) x_min = std::min(x_min, p.x), y_min = std::min(y_min, p.y);
@@ -187,7 +227,7 @@ RawTriangulation delaunay_triangulation(const CrossSection& section, const MeshO
   const std::vector<CgalPoint> seeds = domain_seeds(section, cdt);
   // Shape bound 0.125 is a minimum angle of about 20.7°, which the refinement always reaches.
   GradedCriteria criteria(0.125, &field);
-  CGAL::refine_Delaunay_mesh_2(cdt, seeds.begin(), seeds.end(), criteria, true);
+  refine_guarded(section, cdt, seeds, criteria, arrangement, options.max_nodes);
 
   return painted_triangulation(section, cdt);
 }

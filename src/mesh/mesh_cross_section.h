@@ -9,6 +9,7 @@ namespace edgeflux {
 struct MeshOptions {
   MeshSettings::Mesher mesher = MeshSettings::Mesher::automatic;
   double density = 1.0;  ///< > 0; 2 roughly doubles the elements along every length
+  std::size_t max_nodes = 2'000'000;  ///< the mesher stops with an InputError beyond this
 };
 
 /// Meshes the section. Throws InputError for an area enclosed by the model but covered by no
@@ -19,7 +20,8 @@ TriMesh mesh_cross_section(const CrossSection& section, const MeshOptions& optio
 /// A finer mesh of the same section: every edge of a marked triangle is halved (its midpoint
 /// becomes a node), then the triangulation is rebuilt through all nodes and repaired for shape.
 /// `marked` has one entry per triangle of `previous`. Delaunay meshes only.
-TriMesh refine_mesh(const CrossSection& section, const TriMesh& previous, const std::vector<char>& marked);
+TriMesh refine_mesh(const CrossSection& section, const TriMesh& previous, const std::vector<char>& marked,
+                    std::size_t max_nodes = 2'000'000);
 
 /// Uniform refinement: every triangle split into four through its edge midpoints. Keeps angles,
 /// grading, regions and surface tags; O(n), for very fine meshes.

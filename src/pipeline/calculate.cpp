@@ -4,6 +4,7 @@
 #include <fmt/format.h>
 
 #include <algorithm>
+#include <cmath>
 #include <chrono>
 #include <numeric>
 #include <stdexcept>
@@ -134,6 +135,7 @@ Calculation calculate(const CrossSection& section, const CalculationOptions& opt
   MeshOptions mesh_options;
   mesh_options.density = options.density.value_or(section.mesh.density);
   mesh_options.mesher = options.mesher.value_or(section.mesh.mesher);
+  mesh_options.max_nodes = static_cast<std::size_t>(options.max_nodes);
   const bool grid = mesh_options.mesher == MeshSettings::Mesher::grid;
 
   Convergence convergence;
@@ -187,7 +189,7 @@ Calculation calculate(const CrossSection& section, const CalculationOptions& opt
     } else if (convergence.singular_heat_flow) {
       mesh = subdivide_mesh(calc.mesh);
     } else {
-      mesh = refine_mesh(section, calc.mesh, mark_for_refinement(calc));
+      mesh = refine_mesh(section, calc.mesh, mark_for_refinement(calc), static_cast<std::size_t>(options.max_nodes));
     }
     mesh_seconds = seconds_since(start);
     if (mesh.n_points() > options.max_nodes) {
@@ -205,6 +207,28 @@ Calculation calculate(const CrossSection& section, const CalculationOptions& opt
   if (options.adaptive && !calc.convergence.target_met)
     calc.junction.warnings.push_back("the mesh refinement did not reach the accuracy target (" + calc.convergence.stop_reason +
                                      "); the error bars show the accuracy reached");
+  // Sanity guards: a result that breaks a physical law is marked in every output, never hidden.
+  std::vector<std::string> guards = section.warnings;
+  const double balance = calc.heat_loss.field.balance.relative;
+  if (!(std::abs(balance) < 1e-4))
+    guards.push_back(fmt::format("the energy balance does not close: Σ Φ / (½ Σ |Φ|) = {:.2e}, above the ISO 10211 "
+                                 "criterion of 1e-4; the heat flows are not trustworthy", balance));
+  double coldest = 1e300, warmest = -1e300;
+  for (const Surface& s : section.surfaces) {
+    coldest = std::min(coldest, section.environments[s.environment].temperature);
+    warmest = std::max(warmest, section.environments[s.environment].temperature);
+  }
+  const double slack = 1e-6 * std::max(1.0, warmest - coldest);
+  for (const Run* run : {&calc.heat_loss, &calc.surface_temperature}) {
+    const auto [lo, hi] = std::minmax_element(run->temperature.begin(), run->temperature.end());
+    if (*lo < coldest - slack || *hi > warmest + slack || !std::isfinite(*lo) || !std::isfinite(*hi)) {
+      guards.push_back(fmt::format("computed temperatures {:.3f} … {:.3f} °C leave the range of the boundary temperatures "
+                                   "{:.3f} … {:.3f} °C, which steady conduction cannot do: the solution is not trustworthy",
+                                   *lo, *hi, coldest, warmest));
+      break;
+    }
+  }
+  calc.junction.warnings.insert(calc.junction.warnings.begin(), guards.begin(), guards.end());
   calc.total_seconds = seconds_since(overall);
   return calc;
 }
