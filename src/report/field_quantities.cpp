@@ -1,26 +1,10 @@
-// Heat-flux density per triangle and the walk along the interior surfaces.
+// Boundary loops and the walk along the interior surfaces.
 #include "report/field_quantities.h"
 
 #include <algorithm>
 #include <map>
 
 namespace edgeflux {
-
-std::vector<Point> heat_flux_density(const TriMesh& mesh, const std::vector<double>& conductivity,
-                                      const std::vector<double>& temperature) {
-  std::vector<Point> flux(mesh.triangles.size());
-  for (std::size_t t = 0; t < mesh.triangles.size(); ++t) {
-    const auto& tri = mesh.triangles[t];
-    const Point p0 = mesh.points[tri[0]], p1 = mesh.points[tri[1]], p2 = mesh.points[tri[2]];
-    const double dt1 = temperature[tri[1]] - temperature[tri[0]], dt2 = temperature[tri[2]] - temperature[tri[0]];
-    const Point e1 = p1 - p0, e2 = p2 - p0;
-    const double twice_area = cross(e1, e2);
-    // ∇T solves e1·∇T = dt1, e2·∇T = dt2 (Cramer's rule).
-    const Point gradient{(dt1 * e2.y - dt2 * e1.y) / twice_area, (dt2 * e1.x - dt1 * e2.x) / twice_area};
-    flux[t] = -conductivity[t] * gradient;
-  }
-  return flux;
-}
 
 std::vector<std::vector<int>> boundary_loops(const TriMesh& mesh) {
   // Follow each edge to the edge leaving its end node.

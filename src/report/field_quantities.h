@@ -1,5 +1,4 @@
-// Quantities the reports draw that the results stage does not keep: the heat-flux density per
-// triangle and the temperature along the interior surfaces, read from the mesh and a solved field.
+// Walks along the boundary the reports need: the boundary loops and the interior surfaces in order.
 #pragma once
 
 #include <string>
@@ -9,12 +8,6 @@
 #include "mesh/tri_mesh.h"
 
 namespace edgeflux {
-
-/// Heat-flux density q = −λ ∇T per triangle, W/m², from the linear (P1) interpolation of the node
-/// temperatures, which is constant on each triangle.
-/// conductivity: #T, W/(m·K); temperature: #P, °C. Returns #T vectors (x, y).
-std::vector<Point> heat_flux_density(const TriMesh& mesh, const std::vector<double>& conductivity,
-                                      const std::vector<double>& temperature);
 
 /// The closed boundary loops of a mesh, each as boundary-edge indices in walking order (the section
 /// on the left), the outer loop and the loop of every hole alike.

@@ -3,6 +3,7 @@
 
 #include <fmt/format.h>
 
+#include <algorithm>
 #include <cmath>
 #include <cstdlib>
 #include <ctime>
@@ -45,10 +46,11 @@ p { margin: 1.5mm 0; }
 .notes { color: #333; font-style: italic; }
 .meta { display: grid; grid-template-columns: max-content 1fr; gap: 0.5mm 4mm; font-size: 8.5pt; color: var(--muted); margin: 3mm 0 0; }
 .meta dt { font-weight: bold; } .meta dd { margin: 0; word-break: break-all; }
-.key { display: grid; grid-template-columns: repeat(auto-fit, minmax(42mm, 1fr)); gap: 2.5mm; margin: 3mm 0; }
+.key { display: grid; grid-template-columns: repeat(3, 1fr); gap: 2.5mm; margin: 3mm 0; }
 .card { border: 0.3mm solid var(--rule); border-radius: 1.2mm; padding: 2.2mm 3mm; background: var(--soft); break-inside: avoid; }
 .card .label { font-size: 8.5pt; color: var(--muted); }
-.card .value { font-size: 15pt; font-weight: bold; white-space: nowrap; }
+.card .value { font-size: 15pt; font-weight: bold; }
+.card .pm { font-size: 10pt; font-weight: normal; }
 .card .unit { font-size: 9pt; font-weight: normal; color: var(--muted); }
 .card .detail { font-size: 8.5pt; color: var(--muted); }
 .verdict { border-left: 2mm solid var(--pass); background: #eef7f1; padding: 2.5mm 4mm; margin: 3mm 0; break-inside: avoid; }
@@ -63,6 +65,7 @@ p { margin: 1.5mm 0; }
 table { border-collapse: collapse; width: 100%; margin: 2mm 0 3mm; font-size: 8.8pt; break-inside: avoid; }
 th, td { border-bottom: 0.25mm solid var(--rule); padding: 1mm 2mm; text-align: left; vertical-align: top; }
 th { background: var(--soft); font-weight: bold; border-bottom: 0.4mm solid #9aa3ad; }
+td.nowrap { white-space: nowrap; }
 td.num, th.num { text-align: right; font-variant-numeric: tabular-nums; white-space: nowrap; }
 caption { caption-side: top; text-align: left; font-weight: bold; padding: 0 0 1mm; }
 figure { margin: 4mm 0; break-inside: avoid; }
@@ -92,11 +95,85 @@ std::string key_card(const std::string& label, const std::string& value, const s
                      unit, detail.empty() ? "" : "<div class=\"detail\">" + detail + "</div>");
 }
 
+/// An estimated error in plain decimals, one significant digit rounded up, at most two digits finer
+/// than the value it belongs to (shown with `decimals`): "0.00003"; smaller errors show as one unit
+/// of that finest digit, an upper bound.
+std::string error_text(double error, int decimals) {
+  const int finest = decimals + 2;
+  const double unit = std::pow(10.0, -finest);
+  if (!(error >= unit)) return fmt::format("{:.{}f}", unit, finest);  // an upper bound at the finest digit shown
+  const int d = std::clamp(static_cast<int>(-std::floor(std::log10(error))), decimals, finest);
+  const double scale = std::pow(10.0, d);
+  return fmt::format("{:.{}f}", std::ceil(error * scale - 1e-9) / scale, d);
+}
+
+/// " ± 0.00003" for a value with an estimated discretisation error, nothing without one.
+std::string plus_minus(const std::optional<ErrorEstimate>& e, int decimals) {
+  if (!e) return "";
+  return " <span class=\"pm\">± " + error_text(e->error, decimals) + "</span>";
+}
+
+/// λ with the digits a designer writes: 0.035, 0.99, 2.50, 230.
+std::string conductivity_text(double v) { return fmt::format("{:.{}f}", v, v < 0.1 ? 3 : v < 10 ? 2 : 0); }
+
 std::string climate_text(const Climate& c) {
   return fmt::format("{} °C and {} inside, {} °C outside", fixed(c.interior_temperature, 1),
                      c.interior_relative_humidity ? fixed(100 * *c.interior_relative_humidity, 0) + " % RH"
                                                   : fmt::format("humidity class {}", c.humidity_class.value_or(0)),
                      fixed(c.exterior_temperature, 1));
+}
+
+/// Evidence that the mesh is fine enough: the quantities on every mesh, the estimated errors and the
+/// ISO 10211 doubling check; or, for a single fixed mesh, how to get that evidence.
+std::string convergence_tables(const CrossSection& section, const Calculation& calc) {
+  const Convergence& conv = calc.convergence;
+  const JunctionResults& j = calc.junction;
+  if (conv.levels.size() < 2)
+    return "<p class=\"status\"><b>Mesh convergence:</b> one fixed mesh, no convergence evidence in this run. ISO 10211 asks that Σ|Φ| with n "
+           "and 2n subdivisions differ by less than 1 %: repeat with twice the density and compare, or let edgeflux refine adaptively.</p>\n";
+  std::string h = fmt::format("<table><caption>Mesh convergence ({} refinement, {} meshes)</caption><tr><th class=\"num\">Mesh</th><th class=\"num\">Nodes</th>",
+                              conv.adaptive ? "adaptive" : "uniform", conv.levels.size());
+  const bool has_l2d = std::any_of(conv.levels.begin(), conv.levels.end(), [](const ConvergenceLevel& l) { return l.coupling_2d.has_value(); });
+  const bool has_min = std::any_of(conv.levels.begin(), conv.levels.end(), [](const ConvergenceLevel& l) { return l.min_surface_temperature.has_value(); });
+  if (has_l2d) h += "<th class=\"num\">L<sub>2D</sub> [W/(m·K)]</th>";
+  for (const PsiValue& p : j.psi) h += fmt::format("<th class=\"num\">ψ {} [W/(m·K)]</th>", dimension_system_name(p.system));
+  if (has_min) h += "<th class=\"num\">θ<sub>si,min</sub> [°C]</th>";
+  h += "<th class=\"num\">Σ|Φ| [W/m]</th></tr>\n";
+  for (std::size_t k = 0; k < conv.levels.size(); ++k) {
+    const ConvergenceLevel& l = conv.levels[k];
+    h += fmt::format("<tr><td class=\"num\">{}</td><td class=\"num\">{}</td>", k + 1, l.nodes);
+    if (has_l2d) h += fmt::format("<td class=\"num\">{}</td>", l.coupling_2d ? fixed(*l.coupling_2d, 5) : std::string("—"));
+    for (std::size_t i = 0; i < j.psi.size(); ++i) h += fmt::format("<td class=\"num\">{}</td>", i < l.psi.size() ? fixed(l.psi[i], 4) : std::string("—"));
+    if (has_min) h += fmt::format("<td class=\"num\">{}</td>", l.min_surface_temperature ? fixed(*l.min_surface_temperature, 3) : std::string("—"));
+    h += fmt::format("<td class=\"num\">{}</td></tr>\n", fixed(l.sum_abs_heat_flow, 4));
+  }
+  auto error_cell = [](const std::optional<ErrorEstimate>& e, int decimals) {
+    return fmt::format("<td class=\"num\">{}</td>", e ? "± " + error_text(e->error, decimals - 2) : std::string("—"));
+  };
+  h += "<tr><th colspan=\"2\">estimated error</th>";
+  if (has_l2d) h += error_cell(conv.coupling_2d, 5);
+  for (std::size_t i = 0; i < j.psi.size(); ++i)
+    h += error_cell(i < conv.psi.size() ? std::optional<ErrorEstimate>(conv.psi[i]) : std::nullopt, 4);
+  if (has_min) h += error_cell(conv.min_surface_temperature, 3);
+  h += "<td></td></tr>\n";
+  h += fmt::format("<tr><th colspan=\"2\">target</th>{}{}{}<td></td></tr>\n",
+                   has_l2d ? fmt::format("<td class=\"num\">{:g} × L<sub>2D</sub></td>", conv.target.coupling_relative) : "",
+                   [&] {
+                     std::string s;
+                     for (std::size_t i = 0; i < j.psi.size(); ++i) s += fmt::format("<td class=\"num\">± {:g}</td>", conv.target.psi_absolute);
+                     return s;
+                   }(),
+                   has_min ? fmt::format("<td class=\"num\">± {:g} K</td>", conv.target.temperature_absolute) : "");
+  h += "</table>\n";
+  std::string status = conv.target_met ? "accuracy target met" : "<b>accuracy target NOT met</b>";
+  if (!conv.stop_reason.empty()) status += " (" + escape(conv.stop_reason) + ")";
+  if (conv.doubling)
+    status += fmt::format("; ISO 10211 doubling check: Σ|Φ| {} W/m with {} nodes, {} W/m with {} nodes, change {:.3f} % (criterion &lt; 1 %): <b>{}</b>",
+                          fixed(conv.doubling->coarse_sum, 4), conv.doubling->coarse_nodes, fixed(conv.doubling->fine_sum, 4), conv.doubling->fine_nodes,
+                          100 * conv.doubling->relative_change, conv.doubling->passed ? "met" : "NOT MET");
+  h += "<p class=\"small\">Errors are Richardson-type estimates from the last two meshes; " + status + ".</p>\n";
+  (void)section;
+  return h;
 }
 
 }  // namespace
@@ -139,19 +216,28 @@ std::string html_report(const CrossSection& section, const Calculation& calc, co
   add("</dl>\n</header>\n");
 
   add("<section id=\"summary\">\n<h2>Summary</h2>\n<div class=\"key\">\n");
+  const Convergence& conv = calc.convergence;
   if (field.coupling_2d)
-    add(key_card("Thermal coupling coefficient L<sub>2D</sub>", fixed(*field.coupling_2d, 4), "W/(m·K)", "heat-loss run, per metre of junction"));
-  for (const PsiValue& p : j.psi)
-    add(key_card(fmt::format("ψ, {} dimensions", dimension_system_name(p.system)), fixed(p.psi, 3), "W/(m·K)", "ψ = L<sub>2D</sub> − Σ U·l"));
+    add(key_card("Thermal coupling coefficient L<sub>2D</sub>", fixed(*field.coupling_2d, 4) + plus_minus(conv.coupling_2d, 4), "W/(m·K)",
+                 "heat-loss run, per metre of junction"));
+  for (std::size_t i = 0; i < j.psi.size(); ++i) {
+    const PsiValue& p = j.psi[i];
+    add(key_card(fmt::format("ψ, {} dimensions", dimension_system_name(p.system)),
+                 fixed(p.psi, 3) + plus_minus(i < conv.psi.size() ? std::optional<ErrorEstimate>(conv.psi[i]) : std::nullopt, 3), "W/(m·K)",
+                 "ψ = L<sub>2D</sub> − Σ U·l"));
+  }
   if (j.min_interior_surface) {
     const SurfaceMinimum& m = *j.min_interior_surface;
-    add(key_card("Lowest interior surface temperature θ<sub>si,min</sub>", fixed(m.temperature, 2), "°C",
+    add(key_card("Lowest interior surface temperature θ<sub>si,min</sub>", fixed(m.temperature, 2) + plus_minus(conv.min_surface_temperature, 2), "°C",
                  fmt::format("at {} on “{}”, surface-temperature run", user_point(section, m.at), escape(section.surfaces[m.surface].name))));
   }
   if (j.temperature_factor) add(key_card("Temperature factor f<sub>Rsi</sub>", fixed(*j.temperature_factor, 3), "", "(θsi,min − θe)/(θi − θe)"));
   if (!field.coupling_2d && section.environments.size() > 2)
     add(key_card("Environments", fmt::format("{}", section.environments.size()), "", "see the coupling coefficients and g factors below"));
   add("</div>\n");
+  if (conv.coupling_2d || !conv.psi.empty() || conv.min_surface_temperature)
+    add(fmt::format("<p class=\"small\">± : estimated remaining discretisation error from {} successive meshes (see “Mesh convergence”); {}.</p>\n",
+                    conv.levels.size(), conv.target_met ? "the accuracy target is met" : "<b>the accuracy target is NOT met</b>: " + escape(conv.stop_reason)));
 
   for (const MoistureResult& m : j.moisture) {
     const MoistureAssessment& a = m.assessment;
@@ -193,8 +279,8 @@ std::string html_report(const CrossSection& section, const Calculation& calc, co
     std::string regions;
     for (const Region& r : section.regions)
       if (r.material == m) regions += (regions.empty() ? "" : ", ") + escape(r.name);
-    add(fmt::format("<tr><td>{}</td><td class=\"num\">{:.4g}</td><td>{}</td><td>{}</td></tr>\n", escape(section.materials[m].id),
-                    section.materials[m].conductivity, escape(section.materials[m].source), regions));
+    add(fmt::format("<tr><td>{}</td><td class=\"num\">{}</td><td>{}</td><td>{}</td></tr>\n", escape(section.materials[m].id),
+                    conductivity_text(section.materials[m].conductivity), escape(section.materials[m].source), regions));
   }
   add("</table>\n");
 
@@ -236,7 +322,7 @@ std::string html_report(const CrossSection& section, const Calculation& calc, co
       for (const FlankingLayer& l : f.layers) stack += fmt::format("{} {} mm (λ {:.3g}) | ", escape(l.material), fixed(l.thickness * 1000, 0), l.conductivity);
       stack += fmt::format("Rs {}", fixed(f.end_resistance, 2));
       auto len = [&](int s) { return f.length[s] ? fixed(*f.length[s], 3) : std::string("—"); };
-      add(fmt::format("<tr><td>{}</td><td class=\"num\">{}{}</td><td>{}</td><td class=\"num\">{}</td><td class=\"num\">{}</td><td class=\"num\">{}</td>"
+      add(fmt::format("<tr><td class=\"nowrap\">{}</td><td class=\"num\">{}{}</td><td>{}</td><td class=\"num\">{}</td><td class=\"num\">{}</td><td class=\"num\">{}</td>"
                       "<td class=\"num\">{}</td></tr>\n",
                       escape(f.id), fixed(f.u_value, 4), f.u_value_stated ? " (stated)" : "", stack, len(0), len(1), len(2), fixed(f.deviation_from_1d, 3)));
     }
@@ -311,11 +397,11 @@ std::string html_report(const CrossSection& section, const Calculation& calc, co
                   "<tr><td>Mesh</td><td>{} mesher: {} nodes, {} triangles</td></tr>\n"
                   "<tr><td>Linear solver</td><td>{}, {} unknowns; solved {}</td></tr>\n"
                   "<tr><td>Time</td><td>mesh {:.3f} s, both runs (assembly, factorisation, solves) {:.3f} s, results {:.3f} s</td></tr>\n"
-                  "<tr><td>Mesh convergence</td><td>not part of this run; ISO 10211 asks that Σ|Φ| with n and 2n subdivisions differ by less than 1 %: "
-                  "repeat with <code>--density 2</code> and compare Φ</td></tr>\n</table>\n",
+                  "</table>\n",
                   escape(calc.mesh.mesher), calc.mesh.n_points(), calc.mesh.n_triangles(), escape(info.solver), info.n_unknowns,
                   info.ok && calc.surface_temperature.info.ok ? "without fault in both runs" : "WITH A FAULT: " + escape(info.message),
                   calc.timings.mesh_seconds, calc.timings.solve_seconds, calc.timings.results_seconds));
+  add(convergence_tables(section, calc));
   add("</section>\n");
 
   // --- Method, validation, provenance --------------------------------------------------------

@@ -12,6 +12,7 @@
 
 #include "report/colour_map.h"
 #include "report/field_quantities.h"
+#include "solver/error_indicator.h"
 #include "report/material_fills.h"
 #include "report/svg_support.h"
 
@@ -631,7 +632,7 @@ Drawing detail_drawing(const CrossSection& section, const Calculation& calc) {
 namespace {
 
 /// Frame shared by the field plots: a standard scale that leaves room for a colour bar.
-PaperFrame field_frame(const Bounds& b) { return fit_frame(b, max_width - 40.0, 190.0); }
+PaperFrame field_frame(const Bounds& b) { return fit_frame(b, max_width - 40.0, 205.0); }
 
 std::string colour_bar(Point at, double height, const std::vector<std::pair<double, std::string>>& band_colours,
                        const std::vector<std::pair<double, std::string>>& ticks, const std::string& title, const std::string& subtitle,
@@ -658,9 +659,9 @@ std::string colour_bar(Point at, double height, const std::vector<std::pair<doub
     out += fmt::format("<text x=\"{}\" y=\"{}\" font-size=\"{}\">{}</text>\n", num(at.x + w + 1.6), num(y + font_size * 0.35), num(font_size), escape(text));
     text_w = std::max(text_w, svg::text_width(text, font_size));
   }
-  out += fmt::format("<text x=\"{}\" y=\"{}\" font-size=\"{}\" font-weight=\"bold\">{}</text>\n", num(at.x), num(at.y - 5.0), num(font_size), escape(title));
-  out += fmt::format("<text x=\"{}\" y=\"{}\" font-size=\"{}\" fill=\"#444\">{}</text>\n", num(at.x), num(at.y - 2.0), num(small_font_size), escape(subtitle));
-  include(extent, {at.x, at.y - 7.5, at.x + std::max({w + 2 + text_w, svg::text_width(title, font_size), svg::text_width(subtitle, small_font_size)}),
+  out += fmt::format("<text x=\"{}\" y=\"{}\" font-size=\"{}\" font-weight=\"bold\">{}</text>\n", num(at.x), num(at.y - 6.0), num(font_size), escape(title));
+  out += fmt::format("<text x=\"{}\" y=\"{}\" font-size=\"{}\" fill=\"#444\">{}</text>\n", num(at.x), num(at.y - 3.0), num(small_font_size), escape(subtitle));
+  include(extent, {at.x, at.y - 8.5, at.x + std::max({w + 2 + text_w, svg::text_width(title, font_size), svg::text_width(subtitle, small_font_size)}),
                    at.y + height + 1});
   return out;
 }
@@ -888,9 +889,10 @@ Drawing temperature_drawing(const CrossSection& section, const Calculation& calc
           return line[j] + tt * (line[j + 1] - line[j]);
         };
         const Point dir = unit(at_arc(s + w / 2) - at_arc(s - w / 2));
+        // Upright text, and steep lines read from the right (bottom to top), as on drawings.
         double angle = std::atan2(dir.y, dir.x) * 180 / M_PI;
-        if (angle > 90) angle -= 180;
-        if (angle < -90) angle += 180;
+        while (angle > 80) angle -= 180;
+        while (angle <= -100) angle += 180;
         const double ca = std::abs(std::cos(angle * M_PI / 180)), sa = std::abs(std::sin(angle * M_PI / 180));
         const double bw = ca * w + sa * h, bh = sa * w + ca * h;
         const Box box{c.x - bw / 2, c.y - bh / 2, c.x + bw / 2, c.y + bh / 2};
@@ -937,7 +939,7 @@ Drawing temperature_drawing(const CrossSection& section, const Calculation& calc
 // ---------------------------------------------------------------------------------------------
 Drawing heat_flux_drawing(const CrossSection& section, const Calculation& calc) {
   const TriMesh& mesh = calc.mesh;
-  const std::vector<Point> flux = heat_flux_density(mesh, calc.heat_loss.problem.triangle_conductivity, calc.heat_loss.temperature);
+  const std::vector<Point> flux = triangle_heat_flux(mesh, calc.heat_loss.problem.triangle_conductivity, calc.heat_loss.temperature);
   const Bounds b = section_bounds(mesh);
   const PaperFrame f = field_frame(b);
   const Box drawing = paper_box(f, b);
@@ -1058,7 +1060,7 @@ Drawing surface_temperature_plot(const CrossSection& section, const Calculation&
   out.id = "surface-temperature";
   out.title = "Interior surface temperature";
   const double plot_x0 = 16, plot_y0 = 9, plot_w = 138, plot_h = 72;
-  Box extent{0, 0, plot_x0 + plot_w + 22, plot_y0 + plot_h + 14};
+  Box extent{0, plot_y0 - 1, plot_x0 + plot_w + 22, plot_y0 + plot_h + 10};
   std::string body;
   if (walk.empty()) {
     body += fmt::format("<text x=\"0\" y=\"10\" font-size=\"{}\">No interior surface: mark the room environment side=\"interior\".</text>\n", num(font_size));

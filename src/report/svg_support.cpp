@@ -9,7 +9,7 @@
 namespace edgeflux::svg {
 
 double standard_scale(double needed) {
-  static const double scales[] = {1, 2, 5, 10, 20, 25, 50, 100, 200, 250, 500, 1000, 2000, 2500, 5000, 10000};
+  static const double scales[] = {1, 2, 5, 10, 15, 20, 25, 50, 100, 200, 250, 500, 1000, 2000, 2500, 5000, 10000};
   for (double s : scales)
     if (s >= needed) return s;
   return std::ceil(needed / 10000.0) * 10000.0;

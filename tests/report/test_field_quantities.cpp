@@ -10,6 +10,7 @@
 
 #include "../test_support.h"
 #include "report/field_quantities.h"
+#include "solver/error_indicator.h"
 
 namespace fs = std::filesystem;
 using namespace edgeflux;
@@ -51,7 +52,7 @@ TEST_CASE("heat-flux density of a layered wall is the 1D flux in every triangle"
   // 1D layered wall: q = ΔT / (Rsi + Σ d/λ + Rse) (DOMAIN §6, exact for the finite-volume solution,
   // which is linear in each layer).
   const double q_1d = 25.0 / (0.13 + 0.2 / 0.8 + 0.1 / 0.035 + 0.04);
-  const auto flux = heat_flux_density(calc.mesh, calc.heat_loss.problem.triangle_conductivity, calc.heat_loss.temperature);
+  const auto flux = triangle_heat_flux(calc.mesh, calc.heat_loss.problem.triangle_conductivity, calc.heat_loss.temperature);
   REQUIRE(flux.size() == calc.mesh.triangles.size());
   for (const Point& q : flux) {
     CHECK(q.x == doctest::Approx(q_1d).epsilon(1e-9));  // heat flows from x = 0 (inside) to x = 0.3 (outside)

@@ -10,6 +10,7 @@
 
 #include "../test_support.h"
 #include "report/field_quantities.h"
+#include "solver/error_indicator.h"
 #include "report_test_support.h"
 
 namespace fs = std::filesystem;
@@ -67,7 +68,7 @@ TEST_CASE("the VTU file reads back in meshio with the solver's mesh, temperature
     largest_difference = std::max(largest_difference, std::abs(heat_loss[i].get<double>() - surface_run[i].get<double>()));
   CHECK(largest_difference > 0.1);
 
-  const auto flux = heat_flux_density(calc.mesh, calc.heat_loss.problem.triangle_conductivity, calc.heat_loss.temperature);
+  const auto flux = triangle_heat_flux(calc.mesh, calc.heat_loss.problem.triangle_conductivity, calc.heat_loss.temperature);
   const auto& material = vtk["cell_data"]["material_id"];
   const auto& q = vtk["cell_data"]["heat_flux_w_per_m2"];
   REQUIRE(material.size() == calc.mesh.triangles.size());
