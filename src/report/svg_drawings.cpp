@@ -586,15 +586,19 @@ Drawing detail_drawing(const CrossSection& section, const Calculation& calc) {
   std::string legend_defs;
   body += fmt::format("<text x=\"{}\" y=\"{}\" font-size=\"{}\" font-weight=\"bold\">Materials</text>\n", num(x0), num(y), num(font_size));
   y += 2.0;
-  for (std::size_t m = 0; m < section.materials.size(); ++m) {
-    const double cx = x0 + (m % columns) * column_w, cy = y + (m / columns) * 5.2;
+  std::vector<std::size_t> used_materials;  // those some region paints, in file order
+  for (std::size_t m = 0; m < section.materials.size(); ++m)
+    if (std::any_of(section.regions.begin(), section.regions.end(), [&](const Region& r) { return r.material == m; })) used_materials.push_back(m);
+  for (std::size_t k = 0; k < used_materials.size(); ++k) {
+    const std::size_t m = used_materials[k];
+    const double cx = x0 + (k % columns) * column_w, cy = y + (k / columns) * 5.2;
     body += fmt::format("<rect x=\"{}\" y=\"{}\" width=\"9\" height=\"4\" fill=\"url(#detail-m{}-h)\" stroke=\"#333\" stroke-width=\"0.15\"/>\n",
                         num(cx), num(cy), m);
     body += fmt::format("<text x=\"{}\" y=\"{}\" font-size=\"{}\"><tspan font-weight=\"bold\">{}</tspan>  λ = {} W/(m·K)</text>\n",
                         num(cx + 11), num(cy + 3.0), num(font_size), escape(section.materials[m].id), conductivity_text(section.materials[m].conductivity));
     include(extent, {cx, cy, cx + 11 + svg::text_width(section.materials[m].id + "  λ = 0.035 W/(m·K)", font_size), cy + 4});
   }
-  y += ((section.materials.size() + columns - 1) / columns) * 5.2 + 3.0;
+  y += ((used_materials.size() + columns - 1) / columns) * 5.2 + 3.0;
   body += fmt::format("<text x=\"{}\" y=\"{}\" font-size=\"{}\" font-weight=\"bold\">Boundaries</text>\n", num(x0), num(y), num(font_size));
   y += 2.0;
   std::vector<std::pair<std::string, std::string>> keys;  // (svg of the line sample, text)
@@ -821,17 +825,18 @@ Drawing temperature_drawing(const CrossSection& section, const Calculation& calc
   if (calc.junction.min_interior_surface) {
     const SurfaceMinimum& m = *calc.junction.min_interior_surface;
     const Point p = f.to_paper(m.at);
-    // Outward direction: the free side nearest the point.
-    Point outward{1, 0};
-    double best = -1;
-    for (int k = 0; k < 16; ++k) {
-      const double a = k * M_PI / 8;
+    // Outward direction: the middle of the open side, the mean of the directions that stay
+    // outside the section for 2–10 mm (at a corner, the bisector of the free angle).
+    Point sum{0, 0};
+    for (int k = 0; k < 32; ++k) {
+      const double a = k * M_PI / 16;
       const Point dir{std::cos(a), std::sin(a)};
-      int free = 0;
-      for (double r : {1.0, 2.0, 4.0, 8.0})
-        if (locator.triangle_at(to_world(f, p + r * dir)) < 0) ++free;
-      if (free > best) best = free, outward = dir;
+      bool free = true;
+      for (double r : {2.0, 5.0, 10.0})
+        if (locator.triangle_at(to_world(f, p + r * dir)) >= 0) free = false;
+      if (free) sum = sum + dir;
     }
+    const Point outward = norm(sum) > 1e-9 ? unit(sum) : Point{1, 0};
     const std::vector<std::string> lines{fmt::format("θsi,min = {}", degrees(m.temperature, 2)),
                                          calc.junction.temperature_factor ? fmt::format("fRsi = {:.3f}", *calc.junction.temperature_factor) : std::string(),
                                          section.surfaces[m.surface].name};
@@ -840,7 +845,8 @@ Drawing temperature_drawing(const CrossSection& section, const Calculation& calc
       if (!l.empty()) shown.push_back(l);
     const Box size = label_size_box(shown);
     const Box allowed{drawing.x0 - 40, drawing.y0 - 20, drawing.x1 + 40, drawing.y1 + 20};
-    const Placement pl = place_label(occupied, hit, allowed, p, {-outward.y, outward.x}, 0.0, outward, size.x1, size.y1);
+    Placement pl = place_label(occupied, hit, allowed, p, {-outward.y, outward.x}, 12.0, outward, size.x1, size.y1);
+    pl.anchor = p;  // the label may slide; its leader still points at the minimum
     occupied.add(pl.box);
     occupied.add({p.x - 2, p.y - 2, p.x + 2, p.y + 2});
     include(extent, pl.box);
