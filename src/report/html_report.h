@@ -2,6 +2,10 @@
 // fetched, no scripts) that prints to A4.
 #pragma once
 
+#include <optional>
+
+#include "validation/iso10211_conformity.h"
+
 #include <string>
 #include <vector>
 
@@ -15,6 +19,7 @@ namespace edgeflux {
 struct ReportProvenance {
   std::string input_text;  ///< the bytes of the detail file, embedded and hashed (SHA-256)
   std::string generated;   ///< date and time of the run as shown, e.g. "2025-03-01 14:05 UTC"
+  std::optional<ConformityReport> validation;  ///< ISO 10211 Cases 1 and 2 run with this build
 };
 
 /// The date and time now in UTC as "YYYY-MM-DD HH:MM UTC"; SOURCE_DATE_EPOCH (seconds since

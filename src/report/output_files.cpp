@@ -37,7 +37,9 @@ std::vector<OutputFile> build_output_files(const CrossSection& section, const Ca
   const bool want_drawings = !request.html_report.empty() || !request.svg_folder.empty() || !request.png_folder.empty();
   const std::vector<Drawing> drawings = want_drawings ? report_drawings(section, calc) : std::vector<Drawing>{};
   if (!request.html_report.empty())
-    files.push_back({request.html_report, html_report(section, calc, drawings, {read_whole_file(section.file), report_timestamp()})});
+    // The report carries the validation of the very build that made it (about a second).
+    files.push_back({request.html_report, html_report(section, calc, drawings,
+                                                      {read_whole_file(section.file), report_timestamp(), iso10211_conformity()})});
   if (!request.svg_folder.empty())
     for (const Drawing& d : drawings) files.push_back({in_folder(request.svg_folder, d.id + ".svg"), standalone_svg(d), true});
   if (!request.png_folder.empty())
