@@ -71,9 +71,16 @@ TEST_CASE("the report carries the cautions, the key numbers and its input") {
   CHECK(b.html.find(sha256_hex(b.input)) != std::string::npos);
   CHECK(b.html.find(svg::escape(b.input)) != std::string::npos);
   CHECK(b.html.find("<details>") != std::string::npos);
-  CHECK(b.html.find("tests/reference/iso10211_case1.xml") != std::string::npos);
-  CHECK(b.html.find("tests/reference/iso10211_case2.xml") != std::string::npos);
+  CHECK(b.html.find("Validation status:</b> not run for this report") != std::string::npos);
   CHECK(b.html.find("2000-01-01 00:00 UTC") != std::string::npos);
+}
+
+TEST_CASE("a report made with a validation run shows its conformity result (ISO 10211 Annex C, Cases 1 and 2)") {
+  const Built b = build("examples/intermediate-floor.xml");
+  const std::string html = html_report(b.section, b.calc, {}, {b.input, "now", iso10211_conformity()});
+  CHECK(html.find("38 of 38 reference values within the standard's tolerance") != std::string::npos);
+  CHECK(html.find("high-precision method") != std::string::npos);
+  CHECK(html.find("Φ through the section") != std::string::npos);
 }
 
 TEST_CASE("with three environments the report gives the coupling matrix and g factors") {
