@@ -48,7 +48,14 @@ std::vector<Segment> segment_arrangement(const std::vector<Segment>& segments, d
       if (!segments_intersect(s.a, s.b, t.a, t.b)) continue;
       const Point r = s.b - s.a, q = t.b - t.a;
       if (std::abs(cross(r, q)) <= 1e-12 * norm(r) * norm(q)) continue;  // parallel: handled by end points
-      const Point x = snap(intersection_point(s.a, s.b, t.a, t.b));
+      // An axis-parallel edge keeps its exact coordinate at the crossing, so the pieces of a
+      // horizontal or vertical edge stay exactly horizontal or vertical.
+      Point crossing = intersection_point(s.a, s.b, t.a, t.b);
+      for (const Segment* u : {&s, &t}) {
+        if (u->a.y == u->b.y) crossing.y = u->a.y;
+        if (u->a.x == u->b.x) crossing.x = u->a.x;
+      }
+      const Point x = snap(crossing);
       for (std::size_t k : {i, j}) {
         const Segment& u = snapped[k];
         if (distance(x, u.a) > tolerance && distance(x, u.b) > tolerance) cuts[k].push_back(x);

@@ -11,6 +11,7 @@
 #include <CGAL/Triangulation_vertex_base_with_info_2.h>
 
 #include <algorithm>
+#include <cstdlib>
 #include <fmt/format.h>
 #include <tuple>
 #include <unordered_map>
@@ -25,6 +26,10 @@
 namespace edgeflux {
 namespace {
 
+// Exact predicates, inexact constructions: exact constructions make the coordinates of refinement
+// points grow without bound (measured: a two-rectangle section did not finish). Constraint pieces
+// therefore must be exactly straight in doubles, which segment_arrangement ensures for axis-parallel
+// edges (crossings take the exact coordinates of the edges).
 using Kernel = CGAL::Exact_predicates_inexact_constructions_kernel;
 // Vertex info: output node index; face info: painting region (-2 = not yet painted).
 using VertexBase = CGAL::Triangulation_vertex_base_with_info_2<int, Kernel, CGAL::Delaunay_mesh_vertex_base_2<Kernel>>;
@@ -89,17 +94,20 @@ class GradedCriteria : public virtual CGAL::Delaunay_mesh_criteria_2<Cdt> {
       const CgalPoint& pa = fh->vertex(0)->point();
       const CgalPoint& pb = fh->vertex(1)->point();
       const CgalPoint& pc = fh->vertex(2)->point();
-      const double a = CGAL::squared_distance(pb, pc), b = CGAL::squared_distance(pc, pa),
-                   c = CGAL::squared_distance(pa, pb);
+      // Sizes and shapes need no exactness: judge them in doubles.
+      const double ax = CGAL::to_double(pa.x()), ay = CGAL::to_double(pa.y()), bx = CGAL::to_double(pb.x()),
+                   by = CGAL::to_double(pb.y()), cx = CGAL::to_double(pc.x()), cy = CGAL::to_double(pc.y());
+      const double a = (bx - cx) * (bx - cx) + (by - cy) * (by - cy), b = (cx - ax) * (cx - ax) + (cy - ay) * (cy - ay),
+                   c = (ax - bx) * (ax - bx) + (ay - by) * (ay - by);
       double sorted[3] = {a, b, c};
       std::sort(sorted, sorted + 3);
-      const double h = (*field_)((pa.x() + pb.x() + pc.x()) / 3.0, (pa.y() + pb.y() + pc.y()) / 3.0);
+      const double h = (*field_)((ax + bx + cx) / 3.0, (ay + by + cy) / 3.0);
       q.second = sorted[2] / (h * h);
       if (q.size() > 1) {
         q.first = 1;
         return CGAL::Mesh_2::IMPERATIVELY_BAD;
       }
-      const double area = 2 * CGAL::area(pa, pb, pc);
+      const double area = (bx - ax) * (cy - ay) - (by - ay) * (cx - ax);
       q.first = (area * area) / (sorted[2] * sorted[1]);
       return q.sine() < this->B ? CGAL::Mesh_2::BAD : CGAL::Mesh_2::NOT_BAD;
     }
@@ -145,7 +153,7 @@ std::vector<CgalPoint> domain_seeds(const CrossSection& section, const Cdt& cdt)
   std::vector<CgalPoint> seeds;
   for (auto f = cdt.finite_faces_begin(); f != cdt.finite_faces_end(); ++f) {
     const CgalPoint c = CGAL::centroid(f->vertex(0)->point(), f->vertex(1)->point(), f->vertex(2)->point());
-    if (painting_region(section, {c.x(), c.y()}) >= 0) seeds.push_back(c);
+    if (painting_region(section, {CGAL::to_double(c.x()), CGAL::to_double(c.y())}) >= 0) seeds.push_back(c);
   }
   return seeds;
 }
@@ -239,7 +247,7 @@ RawTriangulation painted_triangulation(const CrossSection& section, Cdt& cdt) {
   raw.points.reserve(cdt.number_of_vertices());
   for (auto v = cdt.finite_vertices_begin(); v != cdt.finite_vertices_end(); ++v) {
     v->info() = static_cast<int>(raw.points.size());
-    raw.points.push_back({v->point().x(), v->point().y()});
+    raw.points.push_back({CGAL::to_double(v->point().x()), CGAL::to_double(v->point().y())});
   }
   // Faces between the same constraints share a region: paint one face per constrained component.
   for (auto f = cdt.finite_faces_begin(); f != cdt.finite_faces_end(); ++f) f->info() = -2;
@@ -247,7 +255,7 @@ RawTriangulation painted_triangulation(const CrossSection& section, Cdt& cdt) {
   for (auto f = cdt.finite_faces_begin(); f != cdt.finite_faces_end(); ++f) {
     if (f->info() != -2) continue;
     const CgalPoint c = CGAL::centroid(f->vertex(0)->point(), f->vertex(1)->point(), f->vertex(2)->point());
-    const int region = painting_region(section, {c.x(), c.y()});
+    const int region = painting_region(section, {CGAL::to_double(c.x()), CGAL::to_double(c.y())});
     f->info() = region;
     todo.push_back(f);
     while (!todo.empty()) {

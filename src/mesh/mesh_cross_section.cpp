@@ -155,10 +155,10 @@ TriMesh finish_mesh(const CrossSection& section, const RawTriangulation& raw, co
   for (int t = 0; t < static_cast<int>(raw.triangles.size()); ++t) {
     const int region = raw.triangle_region[t];
     if (region < 0) continue;
-    // Skip needle triangles of zero area (collinear constraint points): they carry no conductance.
+    // Every triangle is kept, even one whose area rounds to zero in doubles (the triangulation's
+    // exact predicates made it valid): dropping it would open a false boundary inside the section.
+    // Its conductance is zero (see triangle_conductance).
     const auto& raw_tri = raw.triangles[t];
-    const Point p0 = raw.points[raw_tri[0]], p1 = raw.points[raw_tri[1]], p2 = raw.points[raw_tri[2]];
-    if (cross(p1 - p0, p2 - p0) <= 0.0) continue;
     std::array<int, 3> tri{};
     for (int k = 0; k < 3; ++k) {
       int& v = new_index[raw_tri[k]];

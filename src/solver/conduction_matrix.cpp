@@ -9,6 +9,7 @@ std::array<std::array<double, 3>, 3> triangle_conductance(Point p0, Point p1, Po
   const Point e[3] = {p2 - p1, p0 - p2, p1 - p0};
   const double twice_area = cross(p1 - p0, p2 - p0);
   std::array<std::array<double, 3>, 3> k{};
+  if (!(twice_area > 0.0)) return k;  // a needle whose area rounds to zero conducts nothing
   for (int i = 0; i < 3; ++i)
     for (int j = 0; j < 3; ++j) k[i][j] = conductivity * dot(e[i], e[j]) / (2.0 * twice_area);
   return k;

@@ -15,6 +15,7 @@ std::vector<Point> triangle_heat_flux(const TriMesh& mesh, const std::vector<dou
     // ∇θ = Σ θ_i ∇φ_i with ∇φ_i = rot(e_i) / (2A), e_i the edge opposite node i.
     const Point e[3] = {p2 - p1, p0 - p2, p1 - p0};
     Point gradient{0.0, 0.0};
+    if (!(twice_area > 0.0)) continue;  // needle of zero area in doubles: no flux
     for (int i = 0; i < 3; ++i) gradient = gradient + (temperature[tri[i]] / twice_area) * Point{-e[i].y, e[i].x};
     flux[t] = (-conductivity[t]) * gradient;
   }
