@@ -16,6 +16,7 @@ using namespace edgeflux;
 int main(int argc, char** argv) {
   CalculationOptions options;
   options.mesher = MeshSettings::Mesher::delaunay;
+  options.adaptive = false;  // one solve on the mesh of each density, not a refinement sequence
   for (int i = 1; i + 1 < argc; ++i) {
     if (!std::strcmp(argv[i], "--mesher")) options.mesher = !std::strcmp(argv[i + 1], "grid") ? MeshSettings::Mesher::grid : MeshSettings::Mesher::delaunay;
     if (!std::strcmp(argv[i], "--solver")) {
