@@ -155,7 +155,7 @@ GeneratedDetail generate(FuzzedDataProvider& fd) {
       "<edgeflux-detail format=\"1\" units=\"mm\">\n  <materials>\n{}  </materials>\n  <regions>\n{}  </regions>\n"
       "  <environments>\n    <environment id=\"a\" temperature=\"{}\" side=\"{}\"/>\n"
       "    <environment id=\"b\" temperature=\"{}\" side=\"{}\"/>\n  </environments>\n"
-      "  <boundaries>\n{}  </boundaries>\n{}{}  <mesh density=\"0.3\" mesher=\"{}\"/>\n</edgeflux-detail>\n",
+      "  <boundaries>\n{}  </boundaries>\n{}{}  <mesh density=\"0.1\" mesher=\"{}\"/>\n</edgeflux-detail>\n",
       materials, regions, t_a, sides[0], t_b, sides[1], boundaries, probes.empty() ? "" : "  <probes>\n" + probes + "  </probes>\n",
       "", grid ? "grid" : "delaunay");
   return out;
