@@ -21,8 +21,11 @@ double distance_to_segment(Point p, Point a, Point b);
 /// True when the closed segments ab and cd share a point.
 bool segments_intersect(Point a, Point b, Point c, Point d);
 
-/// Indices (i, j) of the first pair of non-adjacent edges of a closed outline that touch or cross,
-/// or {-1, -1} when the outline is simple. Edge i runs from point i to point i+1 (cyclic).
+/// Indices (i, j), i < j, of a pair of edges of a closed outline that touch or cross, or {-1, -1}
+/// when the outline is simple. Edge i runs from point i to point i+1 (cyclic). Adjacent edges count
+/// only when they fold back onto each other (or one has zero length). Found by a sweep in
+/// O(n log n): the pair is the first one met from the left (smallest x, then y), not the first in
+/// index order.
 std::pair<int, int> first_self_intersection(std::span<const Point> outline);
 
 /// The point where segments ab and cd cross (assumes they do and are not parallel).

@@ -5,7 +5,11 @@
 
 #include <algorithm>
 #include <cmath>
+#include <cstdint>
+#include <optional>
 #include <set>
+#include <unordered_map>
+#include <utility>
 
 #include "geometry/polygon.h"
 
@@ -14,68 +18,119 @@ namespace {
 
 std::string region_label(const Region& r) { return fmt::format("region '{}'", r.name); }
 
-void check_region(const CrossSection& section, Region& region) {
+struct Problem {
+  std::string what, fix;
+};
+
+/// What is wrong with one region outline, if anything: too few points, a repeated point, zero area
+/// (all corners on one line), an outline that crosses or touches itself.
+std::optional<Problem> region_problem(const CrossSection& section, const Region& region) {
   const auto& pts = region.outline;
   if (pts.size() < 3)
-    throw_input_error(region.where, region_label(region),
-                      fmt::format("has {} point{}, a polygon needs at least 3", pts.size(), pts.size() == 1 ? "" : "s"),
-                      "list the corners of the area as x,y pairs");
+    return Problem{fmt::format("has {} point{}, a polygon needs at least 3", pts.size(), pts.size() == 1 ? "" : "s"),
+                   "list the corners of the area as x,y pairs"};
   for (std::size_t i = 0; i < pts.size(); ++i) {
     const Point a = pts[i], b = pts[(i + 1) % pts.size()];
     if (a.x == b.x && a.y == b.y)
-      throw_input_error(region.where, region_label(region),
-                        fmt::format("point {} repeats at {}", i + 1, section.format_point(a)),
-                        "remove the repeated point");
+      return Problem{fmt::format("point {} repeats at {}", i + 1, section.format_point(a)), "remove the repeated point"};
   }
+  // Zero area before crossings: corners on one line make edges that fold back, which the
+  // crossing test would report, but the user's mistake is the flat outline.
+  std::size_t far = 0;
+  for (std::size_t i = 1; i < pts.size(); ++i)
+    if (distance(pts[i], pts[0]) > distance(pts[far], pts[0])) far = i;
+  const Point direction = pts[far] - pts[0];
+  const bool collinear = std::all_of(pts.begin(), pts.end(), [&](Point p) {
+    return std::abs(cross(direction, p - pts[0])) <= 1e-12 * dot(direction, direction);
+  });
+  if (collinear)
+    return Problem{fmt::format("has zero area: all its corners lie on the line from {} to {}", section.format_point(pts[0]),
+                               section.format_point(pts[far])),
+                   "check the coordinates; a region needs corners off that line"};
   const auto [i, j] = first_self_intersection(pts);
   if (i >= 0) {
     const std::size_t n = pts.size();
-    throw_input_error(region.where, region_label(region),
-                      fmt::format("the outline crosses itself: edge {} → {} meets edge {} → {}",
-                                  section.format_point(pts[i]), section.format_point(pts[(i + 1) % n]),
-                                  section.format_point(pts[j]), section.format_point(pts[(j + 1) % n])),
-                      "list the corners in order around the area, without crossing; split a figure-eight "
-                      "into two regions");
+    return Problem{fmt::format("the outline crosses itself: edge {} → {} meets edge {} → {}", section.format_point(pts[i]),
+                               section.format_point(pts[(i + 1) % n]), section.format_point(pts[j]),
+                               section.format_point(pts[(j + 1) % n])),
+                   "list the corners in order around the area, without crossing; split a figure-eight into two regions"};
   }
   const double area = signed_area(pts);
   double extent = 0.0;
   for (Point p : pts) extent = std::max({extent, std::abs(p.x - pts[0].x), std::abs(p.y - pts[0].y)});
   if (std::abs(area) <= 1e-12 * extent * extent)
-    throw_input_error(region.where, region_label(region),
-                      fmt::format("has zero area (corners from {})", section.format_point(pts[0])),
-                      "check the coordinates: all corners lie on one line");
-  if (area < 0.0) std::reverse(region.outline.begin(), region.outline.end());
+    return Problem{fmt::format("has zero area (corners from {})", section.format_point(pts[0])),
+                   "check the coordinates: all corners lie on one line"};
+  return std::nullopt;
 }
+
+void check_region(const CrossSection& section, Region& region) {
+  if (const auto problem = region_problem(section, region))
+    throw_input_error(region.where, region_label(region), problem->what, problem->fix);
+  if (signed_area(region.outline) < 0.0) std::reverse(region.outline.begin(), region.outline.end());
+}
+
+/// What the snapping did to one region, for the message when it folds the region.
+struct SnapRecord {
+  int moved = 0;
+  Point first_from{}, first_to{};
+};
 
 /// Points of different regions (or of a region and a surface path) closer than the snapping
 /// tolerance but not equal are almost certainly meant to coincide: a hair-thin gap or overlap would
 /// create a sliver the mesh must resolve and a spurious notch or bridge. They are moved onto the
-/// earlier point, and the user is told.
-void snap_nearly_coincident_points(CrossSection& section, double tolerance) {
+/// earlier point, and the user is told. The rule holds within one outline too: the model has a
+/// geometric resolution of the tolerance, and a feature finer than that is rounding or a slip, not
+/// construction. Returns what happened to each region.
+std::vector<SnapRecord> snap_nearly_coincident_points(CrossSection& section, double tolerance) {
+  // Anchors in cells of the tolerance's size: every anchor within the tolerance of a point lies in
+  // its cell or one of the eight around it. The earliest such anchor wins, as in a scan of all
+  // earlier points, so the result does not depend on the grid.
+  struct CellHash {
+    std::size_t operator()(const std::pair<std::int64_t, std::int64_t>& c) const {
+      return std::hash<std::int64_t>()(c.first * 0x9E3779B97F4A7C15ULL ^ c.second);
+    }
+  };
+  std::unordered_map<std::pair<std::int64_t, std::int64_t>, std::vector<std::size_t>, CellHash> cells;
   std::vector<Point> anchors;
+  auto cell_of = [&](double v) {
+    // The reader bounds coordinates to 1e6 m (1e11 cells); the clamp keeps the cast defined anyway.
+    return static_cast<std::int64_t>(std::clamp(std::floor(v / tolerance), -1e15, 1e15));
+  };
   int moved = 0;
   Point first_from{}, first_to{};
-  auto snap = [&](Point& p) {
-    for (const Point& a : anchors) {
-      const double d = distance(a, p);
-      if (d == 0.0) return;
-      if (d <= tolerance) {
-        if (moved++ == 0) first_from = p, first_to = a;
-        p = a;
-        return;
+  auto snap = [&](Point& p, SnapRecord* record) {
+    const std::int64_t cx = cell_of(p.x), cy = cell_of(p.y);
+    std::size_t best = anchors.size();
+    for (std::int64_t dx = -1; dx <= 1; ++dx)
+      for (std::int64_t dy = -1; dy <= 1; ++dy) {
+        const auto it = cells.find({cx + dx, cy + dy});
+        if (it == cells.end()) continue;
+        for (std::size_t a : it->second)
+          if (a < best && distance(anchors[a], p) <= tolerance) best = a;
       }
+    if (best == anchors.size()) {
+      cells[{cx, cy}].push_back(anchors.size());
+      anchors.push_back(p);
+      return;
     }
-    anchors.push_back(p);
+    const Point a = anchors[best];
+    if (a.x == p.x && a.y == p.y) return;
+    if (moved++ == 0) first_from = p, first_to = a;
+    if (record && record->moved++ == 0) record->first_from = p, record->first_to = a;
+    p = a;
   };
-  for (Region& region : section.regions)
-    for (Point& p : region.outline) snap(p);
+  std::vector<SnapRecord> records(section.regions.size());
+  for (std::size_t r = 0; r < section.regions.size(); ++r)
+    for (Point& p : section.regions[r].outline) snap(p, &records[r]);
   for (Surface& surface : section.surfaces)
-    for (Point& p : surface.path) snap(p);
+    for (Point& p : surface.path) snap(p, nullptr);
   if (moved > 0)
     section.warnings.push_back(fmt::format(
         "{} point{} closer than {:.3g} mm to another point {} moved onto it (first: {} to {}); check that these "
         "points were meant to coincide", moved, moved == 1 ? "" : "s", tolerance * 1000, moved == 1 ? "was" : "were",
         section.format_point(first_from), section.format_point(first_to)));
+  return records;
 }
 
 void warn_about_sizes(CrossSection& section) {
@@ -102,8 +157,24 @@ void validate_cross_section(CrossSection& section) {
   for (Region& region : section.regions) check_region(section, region);
   warn_about_sizes(section);
   // Snapping tolerance: 0.01 mm, far below any real layer, far above rounding in coordinates.
-  snap_nearly_coincident_points(section, 1e-5);
-  for (Region& region : section.regions) check_region(section, region);  // snapping may fold a region
+  constexpr double snapping_tolerance = 1e-5;
+  const std::vector<SnapRecord> snapped = snap_nearly_coincident_points(section, snapping_tolerance);
+  // Snapping may collapse or fold a region that was fine as written; the message must say so, or
+  // it would describe points and edges the user never drew.
+  for (std::size_t r = 0; r < section.regions.size(); ++r) {
+    Region& region = section.regions[r];
+    if (snapped[r].moved == 0) continue;
+    if (const auto problem = region_problem(section, region))
+      throw_input_error(region.where, region_label(region),
+                        fmt::format("points closer than {:g} mm were snapped together ({} of its points moved, first {} "
+                                    "onto {}), and then the region {}", snapping_tolerance * 1000, snapped[r].moved,
+                                    section.format_point(snapped[r].first_from), section.format_point(snapped[r].first_to),
+                                    problem->what.rfind("has ", 0) == 0 ? problem->what : "is invalid: " + problem->what),
+                        fmt::format("points less than {:g} mm apart count as one point: keep the corners of a region at "
+                                    "least {:g} mm apart and make it larger than that, and write points meant to "
+                                    "coincide with equal coordinates", snapping_tolerance * 1000, snapping_tolerance * 1000));
+    if (signed_area(region.outline) < 0.0) std::reverse(region.outline.begin(), region.outline.end());
+  }
 
   if (section.environments.empty())
     throw_input_error(file_only, "<environments>", "the section has no environment",

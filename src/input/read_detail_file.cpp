@@ -12,6 +12,8 @@
 #include <map>
 #include <set>
 #include <sstream>
+#include <string_view>
+#include <unordered_map>
 
 #include "geometry/validate_cross_section.h"
 #include <muParser.h>
@@ -27,6 +29,20 @@ namespace {
 
 using tinyxml2::XMLElement;
 
+// Plausibility bounds of the inputs (docs/detail-format.md, Limits). They are far outside any real
+// junction, so they never reject a real detail; they catch typing and unit slips and keep the
+// arithmetic meaningful: beyond them areas overflow, the 0.01 mm snapping loses its meaning, or a
+// value is read that no building has.
+/// |x|, |y| of any point, m: 1000 km. A double still resolves 1e-10 m there, far below the
+/// 0.01 mm snapping tolerance.
+constexpr double max_abs_coordinate_m = 1e6;
+/// Largest surface resistance, m²K/W. ISO 6946 values are 0.04–0.17 and ISO 13788 uses 0.25; an
+/// edge that exchanges no heat is adiabatic (no surface), not a very large resistance.
+constexpr double max_surface_resistance = 10.0;
+/// Environment temperatures, °C: from below any cold store or climate to boiling water. The
+/// ISO 13788 vapour pressure formula used for the moisture verdict has the same range.
+constexpr double min_environment_temperature = -100.0, max_environment_temperature = 100.0;
+
 class Reader {
  public:
   Reader(std::string file, const ParameterOverrides& overrides) : file_(std::move(file)), overrides_(overrides) {}
@@ -39,6 +55,13 @@ class Reader {
                         "check the tags and quotes near this line");
     }
     const XMLElement* root = doc.RootElement();
+    if (root != nullptr)
+      if (const XMLElement* second = root->NextSiblingElement())
+        throw_input_error({file_, second->GetLineNum()}, "XML",
+                          fmt::format("a second root element <{}> follows <{}> (line {}); XML allows one root element",
+                                      second->Name(), root->Name(), root->GetLineNum()),
+                          "keep one <edgeflux-detail> per file and remove or merge the other");
+    reject_undefined_entities(text);
     if (root == nullptr || std::string(root->Name()) != "edgeflux-detail")
       throw_input_error({file_, root ? root->GetLineNum() : 1}, "root element",
                         fmt::format("expected <edgeflux-detail>, found <{}>", root ? root->Name() : ""),
@@ -98,6 +121,51 @@ class Reader {
   CrossSection section_;
   // muparser keeps pointers to the variables: stable storage, one slot per parameter.
   std::vector<std::unique_ptr<double>> parameter_values_;
+
+  /// tinyxml2 keeps an entity reference it does not know, such as "&bogus;", as literal text, and it
+  /// expands no entity declared in a DTD. So a title or attribute would silently carry "&bogus;":
+  /// parse again without entity processing and reject every reference other than the five XML
+  /// entities and numeric character references. CDATA, comments and the DTD are not scanned.
+  void reject_undefined_entities(const std::string& text) const {
+    tinyxml2::XMLDocument raw(false);
+    raw.Parse(text.c_str(), text.size());
+    for (const tinyxml2::XMLNode* n = raw.FirstChild(); n; n = n->NextSibling()) scan_entities(n);
+  }
+
+  void scan_entities(const tinyxml2::XMLNode* node) const {
+    if (const XMLElement* e = node->ToElement()) {
+      for (const tinyxml2::XMLAttribute* a = e->FirstAttribute(); a; a = a->Next())
+        check_entities(a->Value(), a->GetLineNum(), fmt::format("<{}> attribute \"{}\"", e->Name(), a->Name()));
+      for (const tinyxml2::XMLNode* child = e->FirstChild(); child; child = child->NextSibling()) {
+        if (const tinyxml2::XMLText* t = child->ToText()) {
+          if (!t->CData()) check_entities(t->Value(), t->GetLineNum(), fmt::format("text of <{}>", e->Name()));
+        } else {
+          scan_entities(child);
+        }
+      }
+    }
+  }
+
+  void check_entities(std::string_view value, int line, const std::string& object) const {
+    static constexpr std::string_view known[] = {"amp", "lt", "gt", "quot", "apos"};
+    for (std::size_t at = value.find('&'); at != std::string_view::npos; at = value.find('&', at + 1)) {
+      const std::size_t end = value.find(';', at);
+      const std::string_view name = end == std::string_view::npos ? std::string_view{} : value.substr(at + 1, end - at - 1);
+      const bool decimal = name.size() > 1 && name[0] == '#' &&
+                           std::all_of(name.begin() + 1, name.end(), [](unsigned char c) { return std::isdigit(c); });
+      const bool hex = name.size() > 2 && name[0] == '#' && name[1] == 'x' &&
+                       std::all_of(name.begin() + 2, name.end(), [](unsigned char c) { return std::isxdigit(c); });
+      if (decimal || hex || std::find(std::begin(known), std::end(known), name) != std::end(known)) continue;
+      // The line of the reference itself: the node's first line plus the line breaks before it.
+      const int here = line + static_cast<int>(std::count(value.begin(), value.begin() + at, '\n'));
+      const std::string shown(value.substr(at, end == std::string_view::npos || end - at > 40 ? std::min<std::size_t>(20, value.size() - at) : end - at + 1));
+      throw_input_error({file_, here}, object,
+                        fmt::format("the entity reference \"{}\" is not defined (XML, and edgeflux, know only &amp; &lt; "
+                                    "&gt; &quot; &apos; and numeric references such as &#176;; entities declared in a "
+                                    "DTD are not expanded)", shown),
+                        "write the character itself (UTF-8), or &amp; for a literal &");
+    }
+  }
 
   std::string parameter_names() const {
     std::string names;
@@ -171,6 +239,7 @@ class Reader {
   std::vector<PendingRef> material_refs_, environment_refs_;
   std::vector<std::string> surface_resistance_text_;  // per surface, for the temperature-run default
   std::vector<bool> temperature_run_given_;
+  std::unordered_map<std::string, int> material_lines_, environment_lines_;  // id → line, for duplicates
 
   SourceLocation where(const XMLElement* e) const { return {file_, e->GetLineNum()}; }
 
@@ -258,8 +327,17 @@ class Reader {
                         fmt::format("attribute \"{}\" has an odd number of coordinates ({})", attribute, numbers.size()),
                         "give points as x,y pairs separated by spaces, e.g. \"0,0 200,0\"");
     std::vector<Point> points;
-    for (std::size_t i = 0; i + 1 < numbers.size(); i += 2)
+    const double bound = max_abs_coordinate_m / section_.metres_per_unit;  // in the file's unit
+    for (std::size_t i = 0; i + 1 < numbers.size(); i += 2) {
+      for (std::size_t k : {i, i + 1})
+        if (std::abs(numbers[k]) > bound)
+          throw_input_error(where(e), describe(e),
+                            fmt::format("in attribute \"{}\", point {} has {} = {:g} {}, which is too large: coordinates "
+                                        "must lie within ±{:g} {} (±{:g} m)", attribute, i / 2 + 1, k == i ? "x" : "y",
+                                        numbers[k], section_.unit, bound, section_.unit, max_abs_coordinate_m),
+                            "check the number and the units attribute of <edgeflux-detail>");
       points.push_back({numbers[i] * section_.metres_per_unit, numbers[i + 1] * section_.metres_per_unit});
+    }
     return points;
   }
 
@@ -303,10 +381,10 @@ class Reader {
     if (!(m.conductivity > 0.0))
       throw_input_error(m.where, describe(e), fmt::format("conductivity {} W/(m·K) is not positive", m.conductivity),
                         "give the design thermal conductivity λ in W/(m·K), greater than zero");
-    for (const Material& other : section_.materials)
-      if (other.id == m.id)
-        throw_input_error(m.where, describe(e), fmt::format("material id \"{}\" is already used on line {}", m.id, other.where.line),
-                          "give each material its own id");
+    // A hash set: a generated file may define 100 000 materials, and a pairwise check is quadratic.
+    if (const auto [it, fresh] = material_lines_.emplace(m.id, m.where.line); !fresh)
+      throw_input_error(m.where, describe(e), fmt::format("material id \"{}\" is already used on line {}", m.id, it->second),
+                        "give each material its own id");
     section_.materials.push_back(std::move(m));
   }
 
@@ -321,6 +399,12 @@ class Reader {
         const Point a = parse_point(e, "from"), b = parse_point(e, "to");
         const double x0 = std::min(a.x, b.x), x1 = std::max(a.x, b.x);
         const double y0 = std::min(a.y, b.y), y1 = std::max(a.y, b.y);
+        if (x0 == x1 || y0 == y1)
+          throw_input_error(where(e), describe(e),
+                            fmt::format("has zero area: from {} and to {} have the same {} coordinate, so its {} is 0",
+                                        section_.format_point(a), section_.format_point(b), x0 == x1 ? "x" : "y",
+                                        x0 == x1 ? "width" : "height"),
+                            "give two opposite corners of the rectangle");
         region.outline = {{x0, y0}, {x1, y0}, {x1, y1}, {x0, y1}};
       } else if (kind == "polygon") {
         allow_attributes(e, {"name", "material", "points"});
@@ -356,10 +440,14 @@ class Reader {
     if (env.temperature < -273.15)
       throw_input_error(env.where, describe(e), fmt::format("temperature {} °C is below absolute zero", env.temperature),
                         "give the temperature in degrees Celsius");
-    for (const Environment& other : section_.environments)
-      if (other.id == env.id)
-        throw_input_error(env.where, describe(e), fmt::format("environment id \"{}\" is already used on line {}", env.id, other.where.line),
-                          "give each environment its own id");
+    if (!(env.temperature >= min_environment_temperature && env.temperature <= max_environment_temperature))
+      throw_input_error(env.where, describe(e),
+                        fmt::format("temperature {:g} °C is outside the plausible range {:g} to {:g} °C", env.temperature,
+                                    min_environment_temperature, max_environment_temperature),
+                        "give the design temperature of the air or boundary in degrees Celsius");
+    if (const auto [it, fresh] = environment_lines_.emplace(env.id, env.where.line); !fresh)
+      throw_input_error(env.where, describe(e), fmt::format("environment id \"{}\" is already used on line {}", env.id, it->second),
+                        "give each environment its own id");
     section_.environments.push_back(std::move(env));
   }
 
@@ -371,6 +459,12 @@ class Reader {
       if (value < 0.0)
         throw_input_error(where(e), describe(e), fmt::format("surface resistance {} m²K/W is negative", value),
                           "give a resistance ≥ 0 (0 means a fixed surface temperature)");
+      if (value > max_surface_resistance)
+        throw_input_error(where(e), describe(e),
+                          fmt::format("surface resistance {:g} m²K/W in attribute \"{}\" is above the plausible {:g} m²K/W",
+                                      value, attribute, max_surface_resistance),
+                          "give Rs in m²K/W (ISO 6946: 0.04–0.17); leave an edge that exchanges no heat without a "
+                          "surface (it is adiabatic), and model a thick layer in front of it as a region");
       return value;
     }
     std::string names;
@@ -482,6 +576,9 @@ class Reader {
         const double length = required_number(e, length_keys[s]) * section_.metres_per_unit;
         if (length < 0.0)
           throw_input_error(f.where, describe(e), fmt::format("{} is negative", length_keys[s]), "give a length ≥ 0");
+        if (length > max_abs_coordinate_m)
+          throw_input_error(f.where, describe(e), fmt::format("{} is too large (above {:g} m)", length_keys[s], max_abs_coordinate_m),
+                            "check the number and the units attribute of <edgeflux-detail>");
         f.length[s] = length;
       } else if (const char* from = e->Attribute(from_keys[s])) {
         const auto it = reference_points.find(from);

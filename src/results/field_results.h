@@ -2,6 +2,7 @@
 #pragma once
 
 #include <optional>
+#include <span>
 #include <string>
 #include <vector>
 
@@ -51,6 +52,11 @@ std::vector<double> surface_heat_flows(const TriMesh& mesh, const ThermalProblem
 /// Temperature at p by linear interpolation in the triangle containing it; nothing when p lies
 /// outside the section.
 std::optional<double> temperature_at(const TriMesh& mesh, const std::vector<double>& temperature, Point p);
+
+/// temperature_at for many points at once: the triangles are binned into a grid once, so each
+/// point costs the few triangles near it. One entry per point, nothing where it lies outside.
+std::vector<std::optional<double>> temperatures_at(const TriMesh& mesh, const std::vector<double>& temperature,
+                                                   std::span<const Point> points);
 
 /// Everything above for one solved field. Throws InputError for a probe outside the section.
 FieldResults evaluate_field(const CrossSection& section, const TriMesh& mesh, const ThermalProblem& problem,
