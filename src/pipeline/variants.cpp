@@ -11,6 +11,8 @@
 #include <mutex>
 #include <thread>
 
+#include "solver/solve_temperatures.h"
+
 namespace edgeflux {
 
 std::vector<double> ParameterRange::values() const {
@@ -53,6 +55,7 @@ namespace {
 void parallel_for(int n, int jobs, const std::function<void(int)>& task, const std::function<void(int, int)>& progress) {
   if (jobs <= 0) jobs = std::max(1u, std::thread::hardware_concurrency());
   jobs = std::min(jobs, std::max(n, 1));
+  if (jobs > 1) pin_blas_to_one_thread();
   std::atomic<int> next{0}, done{0};
   std::mutex report;
   auto worker = [&] {

@@ -50,7 +50,7 @@ std::vector<double> surface_heat_flows(const TriMesh& mesh, const ThermalProblem
                                        const std::vector<double>& temperature, const LoadCase& load);
 
 /// Temperature at p by linear interpolation in the triangle containing it; nothing when p lies
-/// outside the section.
+/// outside the section. Bins the triangles anew on every call: for many points use temperatures_at.
 std::optional<double> temperature_at(const TriMesh& mesh, const std::vector<double>& temperature, Point p);
 
 /// temperature_at for many points at once: the triangles are binned into a grid once, so each

@@ -6,6 +6,7 @@
 #include <Eigen/SparseCholesky>
 #include <algorithm>
 #include <chrono>
+#include <atomic>
 #include <cstdlib>
 #include <dlfcn.h>
 
@@ -20,20 +21,36 @@ double seconds_since(std::chrono::steady_clock::time_point start) {
 
 using SparseMatrix = Eigen::SparseMatrix<double>;
 
+// The BLAS thread count is process-wide. Once pinned (several solves running on their own
+// threads), it stays at one: changing it while another thread is inside a factorisation is unsafe,
+// and a second BLAS thread would only compete with the other solves.
+std::atomic<bool> blas_pinned{false};
+
+using SetThreads = void (*)(int);
+using GetThreads = int (*)();
+// Looked up at run time, so a BLAS without these entry points works too (nothing is changed).
+SetThreads blas_set_threads() {
+  static const auto f = reinterpret_cast<SetThreads>(dlsym(RTLD_DEFAULT, "openblas_set_num_threads"));
+  return f;
+}
+GetThreads blas_get_threads() {
+  static const auto f = reinterpret_cast<GetThreads>(dlsym(RTLD_DEFAULT, "openblas_get_num_threads"));
+  return f;
+}
+
 /// Threads for the dense kernels inside the supernodal factorisation. Below about 2·10^5 unknowns
 /// the supernodes are small, and a second BLAS thread spends most of its time spinning in
 /// sched_yield (measured on ISO 10211 Case 2 to 0.01 %: 0.8 s of system time in a 1.2 s run);
-/// above that, one thread per core cuts the factorisation time by about 40 %. The BLAS is looked up at run
-/// time, so a single-threaded BLAS works too; OPENBLAS_NUM_THREADS set by the user wins.
+/// above that, one thread per core cuts the factorisation time by about half. OPENBLAS_NUM_THREADS
+/// set by the user wins.
 void choose_blas_threads(int n_unknowns) {
   static const bool user_chose = std::getenv("OPENBLAS_NUM_THREADS") != nullptr;
-  using SetThreads = void (*)(int);
-  using GetThreads = int (*)();
-  static const auto set_threads = reinterpret_cast<SetThreads>(dlsym(RTLD_DEFAULT, "openblas_set_num_threads"));
-  static const auto get_threads = reinterpret_cast<GetThreads>(dlsym(RTLD_DEFAULT, "openblas_get_num_threads"));
-  if (user_chose || set_threads == nullptr || get_threads == nullptr) return;
+  const SetThreads set_threads = blas_set_threads();
+  const GetThreads get_threads = blas_get_threads();
+  if (user_chose || blas_pinned || set_threads == nullptr || get_threads == nullptr) return;
   static const int machine_threads = get_threads();  // OpenBLAS's own choice: one per core
-  set_threads(n_unknowns < 200000 ? 1 : machine_threads);
+  const int wanted = n_unknowns < 200000 ? 1 : machine_threads;
+  if (get_threads() != wanted) set_threads(wanted);
 }
 
 }  // namespace
@@ -64,6 +81,11 @@ SteadyConduction::SteadyConduction(const TriMesh& mesh, const std::vector<double
 }
 
 SteadyConduction::~SteadyConduction() = default;
+
+void pin_blas_to_one_thread() {
+  if (blas_pinned.exchange(true)) return;
+  if (const SetThreads set_threads = blas_set_threads(); set_threads && !std::getenv("OPENBLAS_NUM_THREADS")) set_threads(1);
+}
 
 std::vector<std::vector<int>> fixed_surfaces_per_node(const TriMesh& mesh, const std::vector<double>& surface_resistance) {
   std::vector<std::vector<int>> fixed(mesh.n_points());
