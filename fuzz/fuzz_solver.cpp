@@ -209,6 +209,9 @@ extern "C" int LLVMFuzzerTestOneInput(const std::uint8_t* data, std::size_t size
     if (!l2d || !std::isfinite(*l2d) || !(*l2d > 0.0)) finding("L2D missing, not finite or not positive");
     if (calc.junction.min_interior_surface)
       check_temperature(g, calc.junction.min_interior_surface->temperature, "θsi,min");
+  } catch (const MeshLimitError&) {
+    // A documented limit of the mesher (a tip sharper than 0.05°, the node limit, the refinement
+    // budget), reached quickly with a clear message: what such a section should get.
   } catch (const InputError& e) {
     finding(std::string("a valid detail was rejected: ") + e.what());
   } catch (const std::exception& e) {

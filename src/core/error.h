@@ -19,6 +19,10 @@ class InputError : public std::runtime_error {
   explicit InputError(const std::string& message) : std::runtime_error(message) {}
 };
 
+/// Formats "file:line: object: problem. Fix: how" (the line left out when 0, the fix when empty).
+std::string format_input_error(const SourceLocation& where, const std::string& object, const std::string& problem,
+                               const std::string& fix);
+
 /// Throws an InputError formatted as "file:line: object: problem. Fix: how".
 [[noreturn]] void throw_input_error(const SourceLocation& where, const std::string& object,
                                     const std::string& problem, const std::string& fix);

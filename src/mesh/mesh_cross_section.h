@@ -1,6 +1,9 @@
 // One call from a cross-section to its mesh: picks the mesher, paints materials, tags surfaces.
 #pragma once
 
+#include <string>
+
+#include "core/error.h"
 #include "geometry/cross_section.h"
 #include "mesh/tri_mesh.h"
 
@@ -12,8 +15,21 @@ struct MeshOptions {
   std::size_t max_nodes = 2'000'000;  ///< the mesher stops with an InputError beyond this
 };
 
+/// A mesh that would pass the node limit, or a refinement that ran past its budget. An InputError, so
+/// a first mesh that fails this way ends the run (exit code 2); adaptive refinement instead stops at
+/// the level it has and says why (`reason`, without file name and fix).
+class MeshLimitError : public InputError {
+ public:
+  MeshLimitError(const std::string& message, std::string reason) : InputError(message), reason_(std::move(reason)) {}
+  const std::string& reason() const { return reason_; }
+
+ private:
+  std::string reason_;
+};
+
 /// Meshes the section. Throws InputError for an area enclosed by the model but covered by no
-/// region, and for a surface path that does not lie on the outer boundary.
+/// region, for a surface path that does not lie on the outer boundary and for region edges that
+/// meet at an angle too sharp to mesh; MeshLimitError for a mesh beyond the node limit or budget.
 /// Deterministic: the same section and options give the same mesh.
 TriMesh mesh_cross_section(const CrossSection& section, const MeshOptions& options);
 
