@@ -61,10 +61,11 @@ struct Convergence {
 
 /// Richardson-type estimate from the last levels: with Q(N) = Q∞ + C N^−a (N nodes),
 /// Q_last − Q∞ = (Q_last − Q_prev) · N_last^−a / (N_prev^−a − N_last^−a); the change used is the
-/// larger of the last one and the one before (scaled by (N_prev/N_last)^a). The bar uses a = 0.5
-/// (error ∝ h), the slowest rate seen on the reference cases before the asymptotic range, where
-/// fitted rates overshoot and would understate the error (docs/method.md shows the levels).
-/// The rate fitted to the last three levels is reported for information.
+/// larger of the last one and the one before (scaled by (N_prev/N_last)^a). The rate a is the one
+/// fitted to the last three levels, held between 0.5 (error ∝ h, the slowest seen on the reference
+/// cases) and 2/3 (a heat flow near a re-entrant right-angle corner, error ∝ h^(4/3)): fitted rates
+/// overshoot before the asymptotic range and would understate the error (docs/method.md shows the
+/// levels). Without a fit (two levels, changes of opposite sign) a = 0.5.
 /// `nodes` and `values` have the same length ≥ 2.
 ErrorEstimate richardson_estimate(const std::vector<int>& nodes, const std::vector<double>& values);
 
