@@ -5,6 +5,7 @@
 #include <CLI/CLI.hpp>
 #include <fmt/format.h>
 
+#include <algorithm>
 #include <cmath>
 #include <cstdio>
 #include <cstdlib>
@@ -100,11 +101,14 @@ int finish_variants(const std::string& heading, const std::vector<VariantSummary
                     const std::vector<std::string>& parameter_names, const std::string& csv_file,
                     const std::string& page_file) {
   fmt::print("{}\n\n", heading);
-  fmt::print("  {:<40} {:>20} {:>20} {:>8} {:>9}  {}\n", "variant", "ψ external", "ψ internal", "fRsi", "required", "verdict");
+  // The first column is as wide as the longest label, so long parameter names keep the columns aligned.
+  std::size_t width = 7;
+  for (const VariantSummary& v : variants) width = std::max(width, v.label.size());
+  fmt::print("  {:<{}} {:>20} {:>20} {:>8} {:>9}  {}\n", "variant", width, "ψ external", "ψ internal", "fRsi", "required", "verdict");
   int failed = 0;
   for (const VariantSummary& v : variants) {
     if (!v.error.empty()) {
-      fmt::print("  {:<40} not calculated: {}\n", v.label, v.error);
+      fmt::print("  {:<{}} not calculated: {}\n", v.label, width, v.error);
       ++failed;
       continue;
     }
@@ -113,7 +117,7 @@ int finish_variants(const std::string& heading, const std::vector<VariantSummary
         if (v.psi[i].system == s) return fmt::format("{:+.4f} ± {:.4f}", v.psi[i].psi, v.psi_error[i]);
       return std::string("—");
     };
-    fmt::print("  {:<40} {:>20} {:>20} {:>8} {:>9}  {}\n", v.label, psi(DimensionSystem::external), psi(DimensionSystem::internal),
+    fmt::print("  {:<{}} {:>20} {:>20} {:>8} {:>9}  {}\n", v.label, width, psi(DimensionSystem::external), psi(DimensionSystem::internal),
                v.temperature_factor ? fmt::format("{:.3f}", *v.temperature_factor) : "—",
                v.required_temperature_factor ? fmt::format("{:.3f}", *v.required_temperature_factor) : "—",
                v.passes ? (*v.passes ? "passes" : "FAILS") : "—");

@@ -47,13 +47,15 @@ std::string summary_text(const CrossSection& section, const Calculation& calc) {
   if (!junction.flanking.empty()) {
     line("");
     line("Flanking elements (U from the layer stack at the cut-off plane unless stated; lengths in m)");
-    line(fmt::format("  {:<18} {:>11} {:>9} {:>9} {:>9}   {}", "element", "U [W/m²K]", "internal", "ov. int.", "external", "layer stack at the cut-off"));
+    std::size_t id_width = 18;  // long ids widen the column rather than push the figures out of line
+    for (const FlankingResult& f : junction.flanking) id_width = std::max(id_width, f.id.size());
+    line(fmt::format("  {:<{}} {:>11} {:>9} {:>9} {:>9}   {}", "element", id_width, "U [W/m²K]", "internal", "ov. int.", "external", "layer stack at the cut-off"));
     for (const FlankingResult& f : junction.flanking) {
       auto length = [&](int s) { return f.length[s] ? fmt::format("{:9.3f}", *f.length[s]) : fmt::format("{:>9}", "—"); };
       std::string stack = fmt::format("Rs {:.2f}", f.start_resistance);
       for (const FlankingLayer& l : f.layers) stack += fmt::format(" | {} {:.0f} mm", l.material, l.thickness * 1000);
       stack += fmt::format(" | Rs {:.2f}", f.end_resistance);
-      line(fmt::format("  {:<18} {:>9.4f}{} {} {} {}   {}", f.id, f.u_value, f.u_value_stated ? " *" : "  ", length(0), length(1),
+      line(fmt::format("  {:<{}} {:>9.4f}{} {} {} {}   {}", f.id, id_width, f.u_value, f.u_value_stated ? " *" : "  ", length(0), length(1),
                        length(2), stack));
     }
     if (std::any_of(junction.flanking.begin(), junction.flanking.end(), [](const FlankingResult& f) { return f.u_value_stated; }))
