@@ -19,6 +19,7 @@
 
 #include <algorithm>
 #include <cstdlib>
+#include <mutex>
 #include <fmt/format.h>
 #include <tuple>
 #include <unordered_map>
@@ -309,8 +310,12 @@ RawTriangulation graded_triangulation(const CrossSection& section, const MeshOpt
   const SizeField field(size_seeds, extent / (50.0 * options.density), 0.3 / std::sqrt(options.density), {x_min, y_min});
   const SharpAngles sharp = sharp_angles(arrangement);
   reject_unmeshable_angle(section, sharp);
-  const double size_nodes = static_cast<double>(given_points) +
-                            estimated_node_count(domain.triangles, field, static_cast<double>(options.max_nodes));
+  // Sharp corners first: they are counted at once, the size field needs a quadrature.
+  const double limit = static_cast<double>(options.max_nodes);
+  const double size_nodes =
+      sharp.wedge_nodes > limit
+          ? 0.0
+          : static_cast<double>(given_points) + estimated_node_count(domain.triangles, field, limit - sharp.wedge_nodes);
   check_node_estimate(section, size_nodes, sharp, field, extent, size_seeds, options.max_nodes);
   const double estimate = size_nodes + sharp.wedge_nodes;
   // Shape bound 0.125 is a minimum angle of about 20.7°, which the refinement always reaches.
@@ -322,8 +327,14 @@ RawTriangulation graded_triangulation(const CrossSection& section, const MeshOpt
 
 /// Runs a meshing step, turning a failed CGAL consistency check into a MeshLimitError that says
 /// where the geometry is most delicate.
+/// CGAL reports a failed check on stderr before it throws (when built with clang); the message
+/// the user gets is ours, on one line, so CGAL's own stays silent.
+void silent_cgal_failure(const char*, const char*, const char*, int, const char*) {}
+
 template <class Step>
 RawTriangulation checked(const CrossSection& section, Step step) {
+  static std::once_flag silenced;
+  std::call_once(silenced, [] { CGAL::set_error_handler(silent_cgal_failure); });
   try {
     return step();
   } catch (const CGAL::Failure_exception& e) {
