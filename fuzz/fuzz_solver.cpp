@@ -9,8 +9,9 @@
 // Checked on every input (a violation aborts with the detail file and the broken invariant):
 //   - the generated file is accepted (it is valid by construction) and the calculation succeeds;
 //   - every number is finite;
-//   - energy balance |Σ Φ| / (½ Σ |Φ|) < 1e-6 (a conservative scheme balances to rounding; the
-//     ISO 10211 criterion is 1e-4, this is far tighter on purpose);
+//   - energy balance |Σ Φ| / (½ Σ |Φ|) < 1e-6, or 1e-11 × the conductivity contrast where larger (a
+//     conservative scheme balances to rounding; the ISO 10211 criterion is 1e-4, this is far
+//     tighter on purpose);
 //   - every node and probe temperature lies within [min θ_env − 1e-6, max θ_env + 1e-6] K (maximum
 //     principle of steady conduction without sources; common practice);
 //   - heat flows in at the warmer environment and out at the colder one, L2D > 0.
@@ -39,6 +40,7 @@ struct GeneratedDetail {
   std::string xml;
   double t_cold = 0.0, t_warm = 0.0;  ///< °C
   std::size_t warm_environment = 0;   ///< index of the warmer environment
+  double contrast = 1.0;              ///< largest over smallest conductivity
 };
 
 /// A detail file (mm) built from the fuzz bytes; valid by construction.
@@ -46,8 +48,10 @@ GeneratedDetail generate(FuzzedDataProvider& fd) {
   const int width = fd.ConsumeIntegralInRange(20, 3000), height = fd.ConsumeIntegralInRange(20, 3000);
   std::string materials, regions;
   int n_materials = 0;
+  double lambda_min = 1e300, lambda_max = 0.0;
   auto add_material = [&] {
     const double conductivity = std::pow(10.0, fd.ConsumeFloatingPointInRange(-3.0, 3.0));
+    lambda_min = std::min(lambda_min, conductivity), lambda_max = std::max(lambda_max, conductivity);
     materials += fmt::format("    <material id=\"m{}\" conductivity=\"{:.6g}\" source=\"fuzz\"/>\n", n_materials, conductivity);
     return n_materials++;
   };
@@ -107,6 +111,7 @@ GeneratedDetail generate(FuzzedDataProvider& fd) {
   const int dt = fd.ConsumeIntegralInRange(1, 50) * (fd.ConsumeBool() ? 1 : -1);
   const int t_b = t_a + dt;
   out.t_cold = std::min(t_a, t_b), out.t_warm = std::max(t_a, t_b);
+  out.contrast = lambda_max / lambda_min;
   out.warm_environment = t_a > t_b ? 0 : 1;
   static const char* const side_pairs[][2] = {{"interior", "exterior"}, {"other", "other"}, {"interior", "other"}, {"exterior", "interior"}};
   const auto& sides = side_pairs[fd.ConsumeIntegralInRange(0, 3)];
@@ -174,6 +179,11 @@ void check_temperature(const GeneratedDetail& g, double t, const std::string& wh
     finding(fmt::format("{} = {:.9g} °C lies outside the environment temperatures [{}, {}]", what, t, g.t_cold, g.t_warm));
 }
 
+/// Rounding in the balance grows with the conductivity contrast: conductances of 1000 W/(m·K)
+/// carry a heat flow set by 0.001 W/(m·K). 1e-6, or 1e-11 × the contrast where that is larger
+/// (measured: 1.2e-6 at a contrast of 10^6); the ISO 10211 criterion, 1e-4, stays far above.
+double balance_bound(const GeneratedDetail& g) { return std::max(1e-6, 1e-11 * g.contrast); }
+
 void check_run(const GeneratedDetail& g, const Run& run, const char* name) {
   for (std::size_t i = 0; i < run.temperature.size(); ++i) check_temperature(g, run.temperature[i], fmt::format("{} run: node {}", name, i));
   const FieldResults& f = run.field;
@@ -183,7 +193,7 @@ void check_run(const GeneratedDetail& g, const Run& run, const char* name) {
     if (!std::isfinite(e.heat_flow)) finding(fmt::format("{} run: heat flow not finite", name));
     sum_abs += std::abs(e.heat_flow);
   }
-  if (!std::isfinite(f.balance.relative) || std::abs(f.balance.relative) >= 1e-6)
+  if (!std::isfinite(f.balance.relative) || std::abs(f.balance.relative) >= balance_bound(g))
     finding(fmt::format("{} run: energy balance ratio {:.3g} (Σ Φ = {:.3g} W/m of Σ|Φ| = {:.3g} W/m)", name, f.balance.relative,
                         f.balance.net, sum_abs));
   if (f.environments.size() != 2) finding(fmt::format("{} run: {} environment flows, expected 2", name, f.environments.size()));

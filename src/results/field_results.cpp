@@ -18,14 +18,17 @@ std::vector<double> surface_heat_flows(const TriMesh& mesh, const ThermalProblem
                                        const std::vector<double>& temperature, const LoadCase& load) {
   const std::size_t n_surfaces = problem.surface_resistance.size();
   std::vector<double> flow(n_surfaces, 0.0);
-  // Net conduction out of each node's control volume, (K T)_i.
+  // Net conduction out of each node's control volume, (K T)_i, summed as Σ_j K_ij (T_j − T_i): the
+  // element rows sum to zero, and in this form the rounding of that sum is not multiplied by the
+  // temperature level.
   std::vector<double> conduction_out(mesh.n_points(), 0.0);
   for (int t = 0; t < mesh.n_triangles(); ++t) {
     const auto& tri = mesh.triangles[t];
     const auto k = triangle_conductance(mesh.points[tri[0]], mesh.points[tri[1]], mesh.points[tri[2]],
                                         problem.triangle_conductivity[t]);
     for (int i = 0; i < 3; ++i)
-      for (int j = 0; j < 3; ++j) conduction_out[tri[i]] += k[i][j] * temperature[tri[j]];
+      for (int j = 0; j < 3; ++j)
+        if (j != i) conduction_out[tri[i]] += k[i][j] * (temperature[tri[j]] - temperature[tri[i]]);
   }
   // Surface-resistance exchange; at a fixed node it is part of the node's balance too.
   std::vector<double> robin_in(mesh.n_points(), 0.0);
