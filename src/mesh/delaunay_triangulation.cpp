@@ -172,6 +172,9 @@ SharpAngles sharp_angles(const std::vector<Segment>& arrangement) {
   for (std::size_t i = 0; i < ends.size(); ++i)
     for (std::size_t j = i + 1; j < ends.size() && ends[j].first.x == ends[i].first.x && ends[j].first.y == ends[i].first.y; ++j) {
       const Point u = ends[i].second, v = ends[j].second;
+      // Collinear ends are one edge drawn twice (two regions sharing it) or overlapping edges,
+      // which the arrangement merges: not a corner.
+      if (cross(u, v) == 0.0) continue;
       const double angle = std::atan2(std::abs(cross(u, v)), dot(u, v));
       if (angle < 20.0 * degree) sharp.wedge_nodes += 12.0 / std::max(angle, 1e-12);
       if (angle / degree < sharp.smallest) sharp.smallest = angle / degree, sharp.where = ends[i].first;
@@ -295,6 +298,15 @@ RawTriangulation through_points(const CrossSection& section, const std::vector<P
 }
 
 RawTriangulation graded_triangulation(const CrossSection& section, const MeshOptions& options) {
+  // The corners of the outlines as drawn are a part of the corners the mesher will see (crossings
+  // add more): in linear time they already refuse a tip too sharp or too many sharp corners, before
+  // the arrangement, the size field and the painting, which grow faster with the number of edges.
+  {
+    const SharpAngles drawn = sharp_angles(region_segments(section));
+    reject_unmeshable_angle(section, drawn);
+    if (drawn.wedge_nodes > static_cast<double>(options.max_nodes))
+      check_node_estimate(section, 0.0, drawn, SizeField({}, 1.0, 1.0, {}), 0.0, {}, options.max_nodes);
+  }
   Cdt cdt;
   const std::vector<Segment> arrangement = arranged_segments(section);
   insert_constraints(arrangement, cdt);
