@@ -63,7 +63,7 @@ struct Convergence {
 /// Q_last − Q∞ = (Q_last − Q_prev) · N_last^−a / (N_prev^−a − N_last^−a); the change used is the
 /// larger of the last one and the one before (scaled by (N_prev/N_last)^a). The rate a is the one
 /// fitted to the last three levels, held between 0.5 (error ∝ h, the slowest seen on the reference
-/// cases) and 2/3 (a heat flow near a re-entrant right-angle corner, error ∝ h^(4/3)): fitted rates
+/// cases) and 0.6, below the 2/3 of a heat flow near a re-entrant right-angle corner: fitted rates
 /// overshoot before the asymptotic range and would understate the error (docs/method.md shows the
 /// levels). Without a fit (two levels, changes of opposite sign) a = 0.5.
 /// `nodes` and `values` have the same length ≥ 2.
