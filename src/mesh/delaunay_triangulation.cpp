@@ -250,17 +250,25 @@ void refine_guarded(const CrossSection& section, Cdt& cdt, const std::vector<Cga
   }
 }
 
-/// Fails at once when the element sizes and sharp corners alone ask for more nodes than the limit.
+[[noreturn]] void refuse_sharp_corners(const CrossSection& section, const SharpAngles& sharp, std::size_t max_vertices) {
+  throw_mesh_limit(section,
+                   fmt::format("the sharp corners between region edges (the smallest {:.2f}° at {}) need about {:.3g} "
+                               "nodes to be filled with well-shaped elements, more than the limit of {}",
+                               sharp.smallest, section.format_point(sharp.where), sharp.wedge_nodes, max_vertices),
+                   "draw corners sharper than about 20° only where the construction has them; a zigzag or a "
+                   "serrated edge is better modelled as a layer of equivalent conductivity");
+}
+
+/// Fails at once when the sharp corners alone ask for more nodes than the limit.
+void check_sharp_corner_nodes(const CrossSection& section, const SharpAngles& sharp, std::size_t max_vertices) {
+  if (sharp.wedge_nodes > static_cast<double>(max_vertices)) refuse_sharp_corners(section, sharp, max_vertices);
+}
+
+/// Fails at once when the element sizes and sharp corners together ask for more nodes than the limit.
 void check_node_estimate(const CrossSection& section, double size_nodes, const SharpAngles& sharp, const SizeField& field,
                          double extent, const std::vector<SizeSeed>& seeds, std::size_t max_vertices) {
   if (size_nodes + sharp.wedge_nodes <= static_cast<double>(max_vertices)) return;
-  if (sharp.wedge_nodes > size_nodes)
-    throw_mesh_limit(section,
-                     fmt::format("the sharp corners between region edges (the smallest {:.2f}° at {}) need about {:.3g} "
-                                 "nodes to be filled with well-shaped elements, more than the limit of {}",
-                                 sharp.smallest, section.format_point(sharp.where), sharp.wedge_nodes, max_vertices),
-                     "draw corners sharper than about 20° only where the construction has them; a zigzag or a "
-                     "serrated edge is better modelled as a layer of equivalent conductivity");
+  if (sharp.wedge_nodes > size_nodes) refuse_sharp_corners(section, sharp, max_vertices);
   const auto finest = std::min_element(seeds.begin(), seeds.end(), [](const SizeSeed& a, const SizeSeed& b) { return a.size < b.size; });
   const double smallest = finest == seeds.end() ? field.max_size() : std::min(finest->size, field.max_size());
   throw_mesh_limit(section,
@@ -304,8 +312,7 @@ RawTriangulation graded_triangulation(const CrossSection& section, const MeshOpt
   {
     const SharpAngles drawn = sharp_angles(region_segments(section));
     reject_unmeshable_angle(section, drawn);
-    if (drawn.wedge_nodes > static_cast<double>(options.max_nodes))
-      check_node_estimate(section, 0.0, drawn, SizeField({}, 1.0, 1.0, {}), 0.0, {}, options.max_nodes);
+    check_sharp_corner_nodes(section, drawn, options.max_nodes);
   }
   Cdt cdt;
   const std::vector<Segment> arrangement = arranged_segments(section);
@@ -333,7 +340,6 @@ RawTriangulation graded_triangulation(const CrossSection& section, const MeshOpt
   // Shape bound 0.125 is a minimum angle of about 20.7°, which the refinement always reaches.
   GradedCriteria criteria(0.125, &field);
   refine_guarded(section, cdt, domain.seeds, criteria, sharp, make_budget(estimate, options.max_nodes, "nodes the element sizes ask for"));
-  if (std::getenv("EDGEFLUX_MESH_STATS")) fmt::print(stderr, "graded: estimate {:.0f}, actual {}\n", estimate, cdt.number_of_vertices());
   return painted_triangulation(section, cdt);
 }
 
