@@ -11,6 +11,7 @@
 #include <mutex>
 #include <thread>
 
+#include "solver/factorisation_runtime.h"
 #include "solver/solve_temperatures.h"
 
 namespace edgeflux {

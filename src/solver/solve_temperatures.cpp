@@ -6,11 +6,9 @@
 #include <Eigen/SparseCholesky>
 #include <algorithm>
 #include <chrono>
-#include <atomic>
-#include <cstdlib>
-#include <dlfcn.h>
 
 #include "solver/conduction_matrix.h"
+#include "solver/factorisation_runtime.h"
 
 namespace edgeflux {
 namespace {
@@ -20,38 +18,6 @@ double seconds_since(std::chrono::steady_clock::time_point start) {
 }
 
 using SparseMatrix = Eigen::SparseMatrix<double>;
-
-// The BLAS thread count is process-wide. Once pinned (several solves running on their own
-// threads), it stays at one: changing it while another thread is inside a factorisation is unsafe,
-// and a second BLAS thread would only compete with the other solves.
-std::atomic<bool> blas_pinned{false};
-
-using SetThreads = void (*)(int);
-using GetThreads = int (*)();
-// Looked up at run time, so a BLAS without these entry points works too (nothing is changed).
-SetThreads blas_set_threads() {
-  static const auto f = reinterpret_cast<SetThreads>(dlsym(RTLD_DEFAULT, "openblas_set_num_threads"));
-  return f;
-}
-GetThreads blas_get_threads() {
-  static const auto f = reinterpret_cast<GetThreads>(dlsym(RTLD_DEFAULT, "openblas_get_num_threads"));
-  return f;
-}
-
-/// Threads for the dense kernels inside the supernodal factorisation. Below about 2·10^5 unknowns
-/// the supernodes are small, and a second BLAS thread spends most of its time spinning in
-/// sched_yield (measured on ISO 10211 Case 2 to 0.01 %: 0.8 s of system time in a 1.2 s run);
-/// above that, one thread per core cuts the factorisation time by about half. OPENBLAS_NUM_THREADS
-/// set by the user wins.
-void choose_blas_threads(int n_unknowns) {
-  static const bool user_chose = std::getenv("OPENBLAS_NUM_THREADS") != nullptr;
-  const SetThreads set_threads = blas_set_threads();
-  const GetThreads get_threads = blas_get_threads();
-  if (user_chose || blas_pinned || set_threads == nullptr || get_threads == nullptr) return;
-  static const int machine_threads = get_threads();  // OpenBLAS's own choice: one per core
-  const int wanted = n_unknowns < 200000 ? 1 : machine_threads;
-  if (get_threads() != wanted) set_threads(wanted);
-}
 
 }  // namespace
 
@@ -81,11 +47,6 @@ SteadyConduction::SteadyConduction(const TriMesh& mesh, const std::vector<double
 }
 
 SteadyConduction::~SteadyConduction() = default;
-
-void pin_blas_to_one_thread() {
-  if (blas_pinned.exchange(true)) return;
-  if (const SetThreads set_threads = blas_set_threads(); set_threads && !std::getenv("OPENBLAS_NUM_THREADS")) set_threads(1);
-}
 
 std::vector<std::vector<int>> fixed_surfaces_per_node(const TriMesh& mesh, const std::vector<double>& surface_resistance) {
   std::vector<std::vector<int>> fixed(mesh.n_points());
@@ -205,7 +166,7 @@ Solution SteadyConduction::solve(const std::vector<double>& surface_resistance, 
     switch (st.options.solver) {
       case LinearSolver::supernodal_cholesky:
         info.solver = "supernodal Cholesky (CHOLMOD)";
-        choose_blas_threads(n_unknowns);
+        prepare_factorisation_runtime(n_unknowns);
         ok = finish(st.cholmod);
         break;
       case LinearSolver::simplicial_ldlt:

@@ -31,11 +31,6 @@ class SteadyConduction {
 Solution solve_temperatures(const TriMesh& mesh, const ThermalProblem& problem, const std::vector<LoadCase>& load_cases,
                             const SolveOptions& options = {});
 
-/// Call before solving on several threads at once: keeps the dense kernels of every later
-/// factorisation on one thread (the solves share the cores, and the process-wide BLAS thread count
-/// must not change while another thread factorises).
-void pin_blas_to_one_thread();
-
 /// For each node, the fixed-temperature surfaces it lies on (empty for most nodes).
 std::vector<std::vector<int>> fixed_surfaces_per_node(const TriMesh& mesh, const std::vector<double>& surface_resistance);
 
