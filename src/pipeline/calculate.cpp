@@ -9,6 +9,7 @@
 #include <numeric>
 #include <stdexcept>
 
+#include "core/process_memory.h"
 #include "solver/error_indicator.h"
 #include "solver/solve_temperatures.h"
 
@@ -132,6 +133,7 @@ Calculation calculate_on_mesh(const CrossSection& section, TriMesh mesh, const C
 Calculation calculate(const CrossSection& section, const CalculationOptions& options) {
   auto tell = [&](const std::string& stage) { if (options.progress) options.progress(stage); };
   const auto overall = std::chrono::steady_clock::now();
+  prepare_process_memory();
   MeshOptions mesh_options;
   mesh_options.density = options.density.value_or(section.mesh.density);
   mesh_options.mesher = options.mesher.value_or(section.mesh.mesher);
@@ -148,6 +150,7 @@ Calculation calculate(const CrossSection& section, const CalculationOptions& opt
   convergence.singular_heat_flow = jump.has_value();
   Calculation calc;
   for (int level = 0;; ++level) {
+    prepare_process_memory();  // huge pages for what the heap gained in the last level
     if (mesh.n_points() > options.max_nodes)
       throw_input_error({section.file, 0}, "mesh",
                         fmt::format("{} nodes exceed the limit of {}", mesh.n_points(), options.max_nodes),

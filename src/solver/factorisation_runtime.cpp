@@ -1,13 +1,13 @@
-// Settings the sparse factorisation runs under. All three were found by measurement on ISO 10211
-// Case 2 and a 316 × 316 grid (10^5 unknowns, 2 cores): the numeric factorisation took 0.63 s
-// where its arithmetic needs under 0.1 s, and most of the difference was system time.
+// Settings the sparse factorisation runs under, found by measurement on ISO 10211 Case 2 and a
+// 316 × 316 grid (10^5 unknowns, 2 cores): the numeric factorisation took 0.63 s where its
+// arithmetic needs under 0.1 s, and most of the difference was system time (threads, page faults).
 #include "solver/factorisation_runtime.h"
+
+#include "core/process_memory.h"
 
 #include <atomic>
 #include <cstdlib>
 #include <dlfcn.h>
-#include <malloc.h>
-#include <mutex>
 
 namespace edgeflux {
 namespace {
@@ -44,24 +44,10 @@ void choose_blas_threads(int n_unknowns) {
   if (get_threads() != wanted) set_threads(wanted);
 }
 
-/// Freed blocks of every size stay with the allocator for the next level or run. By default glibc
-/// maps blocks above 128 KiB (the threshold then adapts) afresh from the kernel and unmaps them on
-/// free, so every factorisation and every refinement level faulted its factor, workspace and mesh
-/// arrays in page by page again: 60 000 page faults and 1 s of system time for three
-/// factorisations of 10^5 unknowns. With reuse the repeated factorisations took 0.09 s instead of
-/// 0.25 s. The price is that the process keeps its peak memory until it exits, which suits a
-/// command-line run. A user's own malloc settings (environment) win.
-void keep_freed_memory_for_reuse() {
-  if (std::getenv("GLIBC_TUNABLES") != nullptr || std::getenv("MALLOC_MMAP_THRESHOLD_") != nullptr) return;
-  mallopt(M_MMAP_THRESHOLD, 1 << 30);
-  mallopt(M_TRIM_THRESHOLD, 1 << 30);
-}
-
 }  // namespace
 
 void prepare_factorisation_runtime(int n_unknowns) {
-  static std::once_flag memory_once;
-  std::call_once(memory_once, keep_freed_memory_for_reuse);
+  prepare_process_memory();
   choose_blas_threads(n_unknowns);
 }
 

@@ -4,8 +4,8 @@
 
 namespace edgeflux {
 
-/// Call before each factorisation: picks the BLAS thread count for this size and, once per
-/// process, tells the allocator to keep freed memory for reuse (see the .cpp for the figures).
+/// Call before each factorisation: picks the BLAS thread count for this size and prepares the
+/// process memory (core/process_memory.h).
 void prepare_factorisation_runtime(int n_unknowns);
 
 /// Call before solving on several threads at once: keeps the dense kernels of every later
