@@ -278,33 +278,6 @@ void check_node_estimate(const CrossSection& section, double size_nodes, const S
                    "millimetres were meant), cut the model at the cut-off planes ISO 10211 asks for, or lower the density");
 }
 
-RawTriangulation through_points(const CrossSection& section, const std::vector<Point>& points, std::size_t max_vertices) {
-  if (points.size() > max_vertices)
-    throw_mesh_limit(section, fmt::format("the refined mesh would have {} nodes, more than the limit of {}", points.size(), max_vertices),
-                     "lower the accuracy target");
-  Cdt cdt;
-  const std::vector<Segment> arrangement = arranged_segments(section);
-  insert_constraints(arrangement, cdt);
-  const Domain domain = painted_domain(section, cdt);
-  insert_surface_and_probe_points(section, cdt);
-  // Points on (or within rounding of) a constraint are left out: a point a hair off a constrained
-  // edge would leave a sliver the refinement cannot remove. The angle-bound refinement splits
-  // those edges again where interior points crowd them.
-  const double tolerance = 1e-9 * section_extent(section);
-  std::vector<CgalPoint> inside;
-  inside.reserve(points.size());
-  for (Point p : points) {
-    bool near_constraint = false;
-    for (const Segment& s : arrangement)
-      if (distance_to_segment(p, s.a, s.b) <= tolerance) { near_constraint = true; break; }
-    if (!near_constraint) inside.emplace_back(p.x, p.y);
-  }
-  cdt.insert(inside.begin(), inside.end());
-  refine_guarded(section, cdt, domain.seeds, CGAL::Delaunay_mesh_criteria_2<Cdt>(0.125), sharp_angles(arrangement),
-                 make_budget(static_cast<double>(points.size()), max_vertices, "nodes of the refined mesh"));
-  return painted_triangulation(section, cdt);
-}
-
 RawTriangulation graded_triangulation(const CrossSection& section, const MeshOptions& options) {
   // The corners of the outlines as drawn are a part of the corners the mesher will see (crossings
   // add more): in linear time they already refuse a tip too sharp or too many sharp corners, before
@@ -368,11 +341,6 @@ RawTriangulation checked(const CrossSection& section, Step step) {
 }
 
 }  // namespace
-
-RawTriangulation delaunay_through_points(const CrossSection& section, const std::vector<Point>& points,
-                                         std::size_t max_vertices) {
-  return checked(section, [&] { return through_points(section, points, max_vertices); });
-}
 
 RawTriangulation delaunay_triangulation(const CrossSection& section, const MeshOptions& options) {
   return checked(section, [&] { return graded_triangulation(section, options); });

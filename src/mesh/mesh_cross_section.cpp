@@ -215,18 +215,6 @@ TriMesh mesh_cross_section(const CrossSection& section, const MeshOptions& optio
   return mesh;
 }
 
-TriMesh refine_mesh(const CrossSection& section, const TriMesh& previous, const std::vector<char>& marked,
-                    std::size_t max_nodes) {
-  std::vector<Point> points = previous.points;
-  std::unordered_map<EdgeKey, int, EdgeKeyHash> midpoints;
-  for (int t = 0; t < previous.n_triangles(); ++t) {
-    if (!marked[t]) continue;
-    const auto& tri = previous.triangles[t];
-    for (int k = 0; k < 3; ++k) midpoint_node(midpoints, points, tri[k], tri[(k + 1) % 3]);
-  }
-  return finish_mesh(section, delaunay_through_points(section, points, max_nodes), previous.mesher);
-}
-
 TriMesh subdivide_mesh(const TriMesh& mesh) {
   TriMesh fine;
   fine.mesher = mesh.mesher;

@@ -23,11 +23,6 @@ struct MeshOptions;
 RawTriangulation grid_triangulation(const CrossSection& section, const MeshOptions& options);
 RawTriangulation delaunay_triangulation(const CrossSection& section, const MeshOptions& options);
 
-/// Constrained Delaunay triangulation of the region edges through the given points (a previous
-/// mesh's nodes plus refinement points), then refined only as far as the angle bound needs.
-RawTriangulation delaunay_through_points(const CrossSection& section, const std::vector<Point>& points,
-                                         std::size_t max_vertices);
-
 /// Index of the last region whose outline contains p (regions paint in file order), or -1.
 int painting_region(const CrossSection& section, Point p);
 
