@@ -66,7 +66,10 @@ ConvergenceLevel level_record(const Calculation& calc, double seconds) {
 std::vector<char> mark_for_refinement(const Calculation& calc) {
   const int n = calc.mesh.n_triangles();
   std::vector<double> eta(n, 0.0);
+  // The same field twice (no interior surface, or the same resistances) counts once.
+  const bool same_field = calc.surface_temperature.problem.surface_resistance == calc.heat_loss.problem.surface_resistance;
   for (const Run* run : {&calc.heat_loss, &calc.surface_temperature}) {
+    if (same_field && run == &calc.surface_temperature) break;
     const std::vector<double> part = flux_jump_indicator(calc.mesh, run->problem, run->temperature, run->load);
     const double total = std::accumulate(part.begin(), part.end(), 0.0);
     if (total > 0.0)
@@ -116,15 +119,17 @@ Calculation calculate_on_mesh(const CrossSection& section, TriMesh mesh, const C
   }
   SteadyConduction conduction(calc.mesh, conductivity, options.solve);
   calc.heat_loss = solve_run(section, calc.mesh, conduction, conductivity, heat_loss_rs);
-  if (temperature_rs == heat_loss_rs)
-    calc.surface_temperature = calc.heat_loss;  // same resistances: the same field
-  else
-    calc.surface_temperature = solve_run(section, calc.mesh, conduction, conductivity, temperature_rs);
+  const bool same_field = temperature_rs == heat_loss_rs;
+  if (!same_field) calc.surface_temperature = solve_run(section, calc.mesh, conduction, conductivity, temperature_rs);
   calc.timings.solve_seconds = seconds_since(start);
 
   start = std::chrono::steady_clock::now();
-  for (Run* run : {&calc.heat_loss, &calc.surface_temperature})
-    run->field = evaluate_field(section, calc.mesh, run->problem, run->temperature, run->load);
+  calc.heat_loss.field = evaluate_field(section, calc.mesh, calc.heat_loss.problem, calc.heat_loss.temperature, calc.heat_loss.load);
+  if (same_field)
+    calc.surface_temperature = calc.heat_loss;  // same resistances: the same field
+  else
+    calc.surface_temperature.field = evaluate_field(section, calc.mesh, calc.surface_temperature.problem,
+                                                    calc.surface_temperature.temperature, calc.surface_temperature.load);
   calc.junction = junction_results(section, calc.mesh, calc.heat_loss, calc.surface_temperature);
   calc.timings.results_seconds = seconds_since(start);
   return calc;

@@ -1,7 +1,7 @@
 // Flux-jump error indicator and per-triangle heat flux.
 #include "solver/error_indicator.h"
 
-#include <unordered_map>
+#include "mesh/mesh_edges.h"
 
 namespace edgeflux {
 
@@ -26,24 +26,18 @@ std::vector<double> flux_jump_indicator(const TriMesh& mesh, const ThermalProble
                                         const std::vector<double>& temperature, const LoadCase& load) {
   const std::vector<Point> flux = triangle_heat_flux(mesh, problem.triangle_conductivity, temperature);
   std::vector<double> eta(mesh.n_triangles(), 0.0);
-  // Interior edges: pair up the two triangles of each edge.
-  std::unordered_map<long long, int> first_side;
-  first_side.reserve(3 * mesh.triangles.size());
-  for (int t = 0; t < mesh.n_triangles(); ++t) {
-    for (int k = 0; k < 3; ++k) {
-      const int a = mesh.triangles[t][k], b = mesh.triangles[t][(k + 1) % 3];
-      const long long key = (static_cast<long long>(std::min(a, b)) << 32) | std::max(a, b);
-      auto [it, inserted] = first_side.try_emplace(key, t);
-      if (inserted) continue;
-      const int u = it->second;
-      const Point edge = mesh.points[b] - mesh.points[a];
-      const double length = norm(edge);
-      const Point normal{edge.y / length, -edge.x / length};
-      const double jump = dot(flux[t] - flux[u], normal);
-      const double share = 0.5 * length * length * jump * jump;
-      eta[t] += 0.5 * share;
-      eta[u] += 0.5 * share;
-    }
+  // Interior edges: the two triangles on each edge.
+  const EdgeTable edges = edge_table(mesh);
+  for (std::size_t e = 0; e < edges.ends.size(); ++e) {
+    const int t = edges.triangles[e][0], u = edges.triangles[e][1];
+    if (u < 0) continue;
+    const Point edge = mesh.points[edges.ends[e][1]] - mesh.points[edges.ends[e][0]];
+    const double length = norm(edge);
+    const Point normal{edge.y / length, -edge.x / length};
+    const double jump = dot(flux[t] - flux[u], normal);
+    const double share = 0.5 * length * length * jump * jump;
+    eta[t] += 0.5 * share;
+    eta[u] += 0.5 * share;
   }
   for (const BoundaryEdge& e : mesh.boundary_edges) {
     if (e.surface < 0) {
