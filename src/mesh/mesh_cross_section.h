@@ -35,7 +35,8 @@ TriMesh mesh_cross_section(const CrossSection& section, const MeshOptions& optio
 
 /// A finer mesh of the same section: every edge of a marked triangle is halved (its midpoint
 /// becomes a node), and neighbours are bisected across their longest edges until the mesh is
-/// conforming again (longest-edge bisection: angles stay at least half the starting mesh's).
+/// conforming again (longest-edge bisection: angles stay at least half the starting mesh's); edge
+/// flips inside each region then restore the Delaunay property.
 /// `marked` has one entry per triangle of `previous`. Throws MeshLimitError past `max_nodes`.
 TriMesh refine_mesh(const CrossSection& section, const TriMesh& previous, const std::vector<char>& marked,
                     std::size_t max_nodes = 2'000'000);

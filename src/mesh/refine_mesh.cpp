@@ -7,7 +7,8 @@
 // half the smallest angle of the mesh it started from (Rivara's bound), however many levels it
 // runs, and it never needs to look at the geometry again: every new node is the midpoint of an
 // existing edge, and region edges and surfaces are straight, so they are kept exactly. Regions,
-// materials and surface tags pass from each triangle and boundary edge to its parts. Linear time.
+// materials and surface tags pass from each triangle and boundary edge to its parts. Edge flips
+// then make the mesh Delaunay again inside each region (delaunay_flips.h). Linear time.
 #include <fmt/format.h>
 
 #include <algorithm>
@@ -16,6 +17,7 @@
 
 #include "core/error.h"
 #include "mesh/mesh_cross_section.h"
+#include "mesh/delaunay_flips.h"
 #include "mesh/mesh_edges.h"
 
 namespace edgeflux {
@@ -139,6 +141,7 @@ TriMesh refine_mesh(const CrossSection& section, const TriMesh& previous, const 
       fine.boundary_edges.push_back({m, e.b, e.surface, child_with(e.triangle, m, e.b)});
     }
   }
+  flip_to_delaunay(fine);
   return fine;
 }
 

@@ -1,5 +1,6 @@
-// Local refinement by longest-edge bisection: conforming, exact in area, boundary and regions,
-// and the smallest angle bounded by half the starting mesh's.
+// Local refinement by longest-edge bisection and Delaunay flips: conforming, exact in area,
+// boundary and regions, Delaunay within each region, and the smallest angle bounded by half the
+// starting mesh's.
 #include <doctest/doctest.h>
 
 #include <algorithm>
@@ -11,6 +12,7 @@
 
 #include "../test_support.h"
 #include "mesh/mesh_cross_section.h"
+#include "mesh/mesh_edges.h"
 
 using namespace edgeflux;
 
@@ -80,6 +82,27 @@ std::vector<char> marks(const TriMesh& mesh, double share, Point centre, double 
   return marked;
 }
 
+/// Edges inside one region whose opposite angles sum to more than 180° (cot γ + cot δ < 0): a
+/// negative conductance in the linear-element matrix (exact algebra of K(i,j) = −λ(cot γ + cot δ)/2).
+int non_delaunay_edges(const TriMesh& mesh) {
+  const EdgeTable edges = edge_table(mesh);
+  int count = 0;
+  for (std::size_t e = 0; e < edges.ends.size(); ++e) {
+    const int t = edges.triangles[e][0], u = edges.triangles[e][1];
+    if (u < 0 || mesh.triangle_region[t] != mesh.triangle_region[u]) continue;
+    double cot_sum = 0.0;
+    for (int w : {t, u}) {
+      int opposite = 0;
+      while (mesh.triangles[w][opposite] == edges.ends[e][0] || mesh.triangles[w][opposite] == edges.ends[e][1]) ++opposite;
+      const Point p = mesh.points[mesh.triangles[w][opposite]];
+      const Point a = mesh.points[edges.ends[e][0]] - p, b = mesh.points[edges.ends[e][1]] - p;
+      cot_sum += dot(a, b) / std::abs(a.x * b.y - a.y * b.x);
+    }
+    count += cot_sum < -1e-9;
+  }
+  return count;
+}
+
 }  // namespace
 
 TEST_CASE("bisection refinement keeps the mesh conforming, its areas, boundary and regions, and its angles") {
@@ -119,6 +142,8 @@ TEST_CASE("bisection refinement keeps the mesh conforming, its areas, boundary a
       // Longest-edge bisection: the smallest angle is at least half the first mesh's (Rosenberg
       // and Stenger, Math. Comp. 29 (1975); from memory).
       CHECK(smallest_angle_degrees(fine) >= 0.5 * angle0);
+      // Flipped back to Delaunay within each region: no negative conductance inside a material.
+      CHECK(non_delaunay_edges(fine) == 0);
       mesh = fine;
     }
   }
