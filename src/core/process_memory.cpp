@@ -20,8 +20,23 @@ std::uintptr_t advised_end = 0;  // the heap below this is marked already
 
 constexpr std::uintptr_t page = 4096;
 
+// Under AddressSanitizer the allocator is the sanitizer's, not glibc's: nothing to tune, and the
+// reserve below would only make it poison 1.5 GiB of shadow memory.
+#if defined(__SANITIZE_ADDRESS__)
+constexpr bool sanitizer_allocator = true;
+#elif defined(__has_feature)
+#if __has_feature(address_sanitizer)
+constexpr bool sanitizer_allocator = true;
+#else
+constexpr bool sanitizer_allocator = false;
+#endif
+#else
+constexpr bool sanitizer_allocator = false;
+#endif
+
 void choose_settings() {
-  user_settings = std::getenv("GLIBC_TUNABLES") != nullptr || std::getenv("MALLOC_MMAP_THRESHOLD_") != nullptr;
+  user_settings = sanitizer_allocator || std::getenv("GLIBC_TUNABLES") != nullptr ||
+                  std::getenv("MALLOC_MMAP_THRESHOLD_") != nullptr;
   if (user_settings) return;
   mallopt(M_MMAP_THRESHOLD, 1 << 30);
   mallopt(M_TRIM_THRESHOLD, std::numeric_limits<int>::max());  // above the reserve below: kept
