@@ -9,6 +9,7 @@
 #include <unordered_map>
 
 #include "geometry/polygon.h"
+#include "mesh/mesh_edges.h"
 #include "mesh/raw_triangulation.h"
 
 namespace edgeflux {
@@ -185,14 +186,6 @@ TriMesh finish_mesh(const CrossSection& section, const RawTriangulation& raw, co
   return mesh;
 }
 
-/// Node index of the midpoint of edge (a, b), created on first request.
-int midpoint_node(std::unordered_map<EdgeKey, int, EdgeKeyHash>& midpoints, std::vector<Point>& points, int a, int b) {
-  const EdgeKey key{std::min(a, b), std::max(a, b)};
-  auto [it, inserted] = midpoints.try_emplace(key, static_cast<int>(points.size()));
-  if (inserted) points.push_back(0.5 * (points[a] + points[b]));
-  return it->second;
-}
-
 }  // namespace
 
 TriMesh mesh_cross_section(const CrossSection& section, const MeshOptions& options) {
@@ -219,13 +212,20 @@ TriMesh subdivide_mesh(const TriMesh& mesh) {
   TriMesh fine;
   fine.mesher = mesh.mesher;
   fine.points = mesh.points;
-  std::unordered_map<EdgeKey, int, EdgeKeyHash> midpoints;
-  midpoints.reserve(3 * mesh.triangles.size());
+  const EdgeTable edges = edge_table(mesh);
+  std::vector<int> midpoint(edges.ends.size());
+  fine.points.reserve(mesh.points.size() + edges.ends.size());
+  for (std::size_t e = 0; e < edges.ends.size(); ++e) {
+    midpoint[e] = static_cast<int>(fine.points.size());
+    fine.points.push_back(0.5 * (mesh.points[edges.ends[e][0]] + mesh.points[edges.ends[e][1]]));
+  }
   fine.triangles.reserve(4 * mesh.triangles.size());
+  fine.triangle_region.reserve(4 * mesh.triangles.size());
+  fine.triangle_material.reserve(4 * mesh.triangles.size());
   for (int t = 0; t < mesh.n_triangles(); ++t) {
     const auto [a, b, c] = mesh.triangles[t];
-    const int ab = midpoint_node(midpoints, fine.points, a, b), bc = midpoint_node(midpoints, fine.points, b, c),
-              ca = midpoint_node(midpoints, fine.points, c, a);
+    const int ab = midpoint[edges.of_triangle[t][0]], bc = midpoint[edges.of_triangle[t][1]],
+              ca = midpoint[edges.of_triangle[t][2]];
     for (const std::array<int, 3>& child : {std::array<int, 3>{a, ab, ca}, {ab, b, bc}, {ca, bc, c}, {ab, bc, ca}}) {
       fine.triangles.push_back(child);
       fine.triangle_region.push_back(mesh.triangle_region[t]);
@@ -234,8 +234,10 @@ TriMesh subdivide_mesh(const TriMesh& mesh) {
   }
   // A boundary edge a→b of triangle t splits into a→m and m→b, owned by the children at a and b.
   for (const BoundaryEdge& e : mesh.boundary_edges) {
-    const int m = midpoints.at({std::min(e.a, e.b), std::max(e.a, e.b)});
     const auto& tri = mesh.triangles[e.triangle];
+    int side = 0;
+    while (!(tri[side] == e.a && tri[(side + 1) % 3] == e.b)) ++side;
+    const int m = midpoint[edges.of_triangle[e.triangle][side]];
     auto child_at = [&](int node) {
       for (int k = 0; k < 3; ++k)
         if (tri[k] == node) return 4 * e.triangle + k;
