@@ -210,7 +210,10 @@ extern "C" int LLVMFuzzerTestOneInput(const std::uint8_t* data, std::size_t size
   current = &g;
   if (std::getenv("EDGEFLUX_FUZZ_PRINT")) std::fprintf(stderr, "%s", g.xml.c_str());
   CalculationOptions options;
-  options.adaptive = false;
+  // Three levels: the first mesh and two refinements (bisection and flips), each checked below on
+  // the finest; more levels would only slow the executions down.
+  options.adaptive = true;
+  options.max_levels = 3;
   try {
     const Calculation calc = calculate(parse_detail_text(g.xml, "fuzz.xml"), options);
     check_run(g, calc.heat_loss, "heat-loss");
