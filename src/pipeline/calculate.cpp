@@ -197,7 +197,7 @@ Calculation calculate(const CrossSection& section, const CalculationOptions& opt
     } else if (convergence.singular_heat_flow) {
       mesh = subdivide_mesh(calc.mesh);
     } else {
-      // A refined mesh past the node limit or the mesher's budget ends the refinement, not the run:
+      // A refined mesh past the node limit ends the refinement, not the run:
       // the levels so far carry their error bars, and the warning says why it stopped.
       try {
         mesh = refine_mesh(section, calc.mesh, mark_for_refinement(calc), static_cast<std::size_t>(options.max_nodes));
