@@ -1,11 +1,16 @@
-// Constrained Delaunay triangulation of all region edges, refined to a graded size field and a
-// minimum-angle bound. The only translation unit that includes CGAL.
+// Constrained Delaunay triangulation of the subdivision's edges, refined to a graded size field and
+// a minimum-angle bound. The only translation unit of mesh/ that includes CGAL.
+//
+// The mesher works in the subdivision's local grid steps, where every vertex has small integer
+// coordinates. A point the refinement puts on a constrained edge is nearly always the midpoint of
+// two points on it, which in doubles is exact and so lies on the edge to the last bit. Near small
+// angles between edges the split points sit at power-of-two distances from the corner (concentric
+// shells, which keep the refinement finite); those are within a unit of the last place of the edge.
+// Faces are painted by flooding from a seed inside each face of the subdivision, never by testing
+// a point against the outlines, so a hair-thin triangle outside an edge can never join the mesh.
 
-// CGAL's own consistency checks stay on in Release builds: with inexact constructions, region edges
-// that cross at flat angles next to a sharp corner can leave a constrained edge whose computed
-// midpoint lies in neither of its triangles; unchecked, refinement then follows a null face and the
-// program crashes (found by fuzz_solver). Checked, CGAL throws, and the caller gets a clear message.
-// Measured cost: none visible in the mesh times of the shipped details (docs/method.md).
+// CGAL's own consistency checks stay on in Release builds: a broken invariant becomes a clear
+// message instead of a crash (measured cost: none visible in the mesh times of the shipped details).
 #define CGAL_DEBUG
 #include <CGAL/Constrained_Delaunay_triangulation_2.h>
 #include <CGAL/Delaunay_mesh_criteria_2.h>
@@ -17,17 +22,15 @@
 #include <CGAL/Triangulation_face_base_with_info_2.h>
 #include <CGAL/Triangulation_vertex_base_with_info_2.h>
 
-#include <algorithm>
-#include <cstdlib>
-#include <mutex>
 #include <fmt/format.h>
-#include <tuple>
-#include <unordered_map>
-#include <cmath>
 
-#include "geometry/cross_section.h"
-#include "geometry/polygon.h"
-#include "geometry/segment_arrangement.h"
+#include <algorithm>
+#include <cmath>
+#include <mutex>
+#include <stdexcept>
+#include <tuple>
+
+#include "geometry/planar_subdivision.h"
 #include "mesh/mesh_cross_section.h"
 #include "mesh/raw_triangulation.h"
 #include "mesh/size_field.h"
@@ -35,19 +38,23 @@
 namespace edgeflux {
 namespace {
 
-// Exact predicates, inexact constructions: exact constructions make the coordinates of refinement
-// points grow without bound (measured: a two-rectangle section did not finish). Constraint pieces
-// therefore must be exactly straight in doubles, which segment_arrangement ensures for axis-parallel
-// edges (crossings take the exact coordinates of the edges).
-using Kernel = CGAL::Exact_predicates_inexact_constructions_kernel;
+/// Exact predicates, inexact constructions: exact constructions make the coordinates of refinement
+/// points grow without bound (measured: a two-rectangle section did not finish).
+using MeshKernel = CGAL::Exact_predicates_inexact_constructions_kernel;
+
 // Vertex info: output node index; face info: painting region (-2 = not yet painted).
-using VertexBase = CGAL::Triangulation_vertex_base_with_info_2<int, Kernel, CGAL::Delaunay_mesh_vertex_base_2<Kernel>>;
-using FaceBase = CGAL::Triangulation_face_base_with_info_2<int, Kernel, CGAL::Delaunay_mesh_face_base_2<Kernel>>;
+using VertexBase = CGAL::Triangulation_vertex_base_with_info_2<int, MeshKernel, CGAL::Delaunay_mesh_vertex_base_2<MeshKernel>>;
+using FaceBase = CGAL::Triangulation_face_base_with_info_2<int, MeshKernel, CGAL::Delaunay_mesh_face_base_2<MeshKernel>>;
 using Tds = CGAL::Triangulation_data_structure_2<VertexBase, FaceBase>;
-// Exact_predicates_tag lets region edges cross: the crossing points become vertices.
-using Cdt = CGAL::Constrained_Delaunay_triangulation_2<Kernel, Tds, CGAL::Exact_predicates_tag>;
-using edgeflux::Segment;
+// The subdivision's edges never cross: an intersection would be a broken promise, and CGAL says so.
+using Cdt = CGAL::Constrained_Delaunay_triangulation_2<MeshKernel, Tds, CGAL::No_constraint_intersection_requiring_constructions_tag>;
 using CgalPoint = Cdt::Point;
+
+constexpr double degree = 3.141592653589793 / 180.0;
+
+CgalPoint cgal_point(Point p) { return CgalPoint(p.x, p.y); }
+CgalPoint cgal_point(GridPoint p) { return CgalPoint(static_cast<double>(p.x), static_cast<double>(p.y)); }
+Point plain(const CgalPoint& p) { return {p.x(), p.y()}; }
 
 /// Minimum-angle bound plus a size bound that varies in space (the longest edge of a face must
 /// not exceed the size field at its centroid).
@@ -60,7 +67,7 @@ class GradedCriteria : public virtual CGAL::Delaunay_mesh_criteria_2<Cdt> {
 
   class Is_bad : public Base::Is_bad {
    public:
-    Is_bad(double aspect_bound, const SizeField* field, const Kernel& traits)
+    Is_bad(double aspect_bound, const SizeField* field, const MeshKernel& traits)
         : Base::Is_bad(aspect_bound, traits), field_(field) {}
 
     CGAL::Mesh_2::Face_badness operator()(const Quality q) const {
@@ -69,23 +76,17 @@ class GradedCriteria : public virtual CGAL::Delaunay_mesh_criteria_2<Cdt> {
     }
 
     CGAL::Mesh_2::Face_badness operator()(const Cdt::Face_handle& fh, Quality& q) const {
-      const CgalPoint& pa = fh->vertex(0)->point();
-      const CgalPoint& pb = fh->vertex(1)->point();
-      const CgalPoint& pc = fh->vertex(2)->point();
-      // Sizes and shapes need no exactness: judge them in doubles.
-      const double ax = CGAL::to_double(pa.x()), ay = CGAL::to_double(pa.y()), bx = CGAL::to_double(pb.x()),
-                   by = CGAL::to_double(pb.y()), cx = CGAL::to_double(pc.x()), cy = CGAL::to_double(pc.y());
-      const double a = (bx - cx) * (bx - cx) + (by - cy) * (by - cy), b = (cx - ax) * (cx - ax) + (cy - ay) * (cy - ay),
-                   c = (ax - bx) * (ax - bx) + (ay - by) * (ay - by);
-      double sorted[3] = {a, b, c};
+      const Point a = plain(fh->vertex(0)->point()), b = plain(fh->vertex(1)->point()), c = plain(fh->vertex(2)->point());
+      double sorted[3] = {dot(b - c, b - c), dot(c - a, c - a), dot(a - b, a - b)};
       std::sort(sorted, sorted + 3);
-      const double h = (*field_)((ax + bx + cx) / 3.0, (ay + by + cy) / 3.0);
+      const Point centre = (1.0 / 3.0) * (a + b + c);
+      const double h = (*field_)(centre.x, centre.y);
       q.second = sorted[2] / (h * h);
       if (q.size() > 1) {
         q.first = 1;
         return CGAL::Mesh_2::IMPERATIVELY_BAD;
       }
-      const double area = (bx - ax) * (cy - ay) - (by - ay) * (cx - ax);
+      const double area = cross(b - a, c - a);
       q.first = (area * area) / (sorted[2] * sorted[1]);
       return q.sine() < this->B ? CGAL::Mesh_2::BAD : CGAL::Mesh_2::NOT_BAD;
     }
@@ -100,84 +101,126 @@ class GradedCriteria : public virtual CGAL::Delaunay_mesh_criteria_2<Cdt> {
   const SizeField* field_;
 };
 
-/// Inserts the region edges, split where they cross or overlap (so no two constraints cross and
-/// the triangulation never has to construct an intersection point).
-void insert_constraints(const std::vector<Segment>& arrangement, Cdt& cdt) {
-  for (const Segment& s : arrangement) cdt.insert_constraint(CgalPoint(s.a.x, s.a.y), CgalPoint(s.b.x, s.b.y));
-}
-
-/// Surface end points become vertices so each boundary edge belongs to one surface only; probes
-/// become vertices so their temperature is a nodal value, free of interpolation error. Returns how
-/// many points were given.
-std::size_t insert_surface_and_probe_points(const CrossSection& section, Cdt& cdt) {
-  std::size_t count = 0;
-  for (const Surface& surface : section.surfaces)
-    for (Point p : surface.path) cdt.insert(CgalPoint(p.x, p.y)), ++count;
-  for (const Probe& probe : section.probes) cdt.insert(CgalPoint(probe.at.x, probe.at.y)), ++count;
-  return count;
-}
-
-double section_extent(const CrossSection& section) {
-  double x_min = 1e300, x_max = -1e300, y_min = 1e300, y_max = -1e300;
-  for (const Region& region : section.regions)
-    for (Point p : region.outline) {
-      x_min = std::min(x_min, p.x), x_max = std::max(x_max, p.x);
-      y_min = std::min(y_min, p.y), y_max = std::max(y_max, p.y);
+/// Paints every face from the seeds: faces between the same constraints share a region. Faces no
+/// seed reaches stay -1 (outside the section).
+void paint_from_seeds(const PlanarSubdivision& sub, Cdt& cdt) {
+  for (auto f = cdt.all_faces_begin(); f != cdt.all_faces_end(); ++f) f->info() = -1;
+  std::vector<Cdt::Face_handle> todo;
+  Cdt::Face_handle hint;
+  for (const FaceSeed& seed : sub.seeds) {
+    const Cdt::Face_handle start = cdt.locate(cgal_point(seed.at), hint);
+    hint = start;
+    if (cdt.is_infinite(start)) throw std::logic_error("a face seed of the section lies outside its triangulation");
+    if (start->info() == seed.region) continue;
+    if (start->info() >= 0) throw std::logic_error("two regions paint one face of the section");
+    start->info() = seed.region;
+    todo.assign(1, start);
+    while (!todo.empty()) {
+      const Cdt::Face_handle g = todo.back();
+      todo.pop_back();
+      for (int k = 0; k < 3; ++k) {
+        const Cdt::Face_handle h = g->neighbor(k);
+        if (cdt.is_infinite(h) || g->is_constrained(k) || h->info() == seed.region) continue;
+        h->info() = seed.region;
+        todo.push_back(h);
+      }
     }
-  return std::max(x_max - x_min, y_max - y_min);
-}
-
-std::vector<Segment> arranged_segments(const CrossSection& section) {
-  return segment_arrangement(region_segments(section), 1e-9 * section_extent(section));
-}
-
-/// The faces of the constraints-only triangulation that some region paints: points inside them tell
-/// the mesher which faces to refine, and the faces themselves are the domain for the node estimate
-/// (cheap: that triangulation has few faces).
-struct Domain {
-  std::vector<CgalPoint> seeds;
-  std::vector<std::array<Point, 3>> triangles;
-};
-
-Domain painted_domain(const CrossSection& section, const Cdt& cdt) {
-  Domain domain;
-  auto to_point = [](const CgalPoint& p) { return Point{CGAL::to_double(p.x()), CGAL::to_double(p.y())}; };
-  for (auto f = cdt.finite_faces_begin(); f != cdt.finite_faces_end(); ++f) {
-    const CgalPoint c = CGAL::centroid(f->vertex(0)->point(), f->vertex(1)->point(), f->vertex(2)->point());
-    if (painting_region(section, to_point(c)) < 0) continue;
-    domain.seeds.push_back(c);
-    domain.triangles.push_back({to_point(f->vertex(0)->point()), to_point(f->vertex(1)->point()), to_point(f->vertex(2)->point())});
   }
+}
+
+/// Triangles of the constraints-only triangulation that some region paints: the domain for the
+/// node estimate (cheap: that triangulation has few faces).
+std::vector<std::array<Point, 3>> painted_domain(const Cdt& cdt) {
+  std::vector<std::array<Point, 3>> domain;
+  for (auto f = cdt.finite_faces_begin(); f != cdt.finite_faces_end(); ++f)
+    if (f->info() >= 0) domain.push_back({plain(f->vertex(0)->point()), plain(f->vertex(1)->point()), plain(f->vertex(2)->point())});
   return domain;
 }
 
-RawTriangulation painted_triangulation(const CrossSection& section, Cdt& cdt);
+double point_segment_distance(Point p, Point a, Point b) {
+  const Point d = b - a;
+  const double len2 = dot(d, d);
+  const double t = len2 > 0.0 ? std::clamp(dot(p - a, d) / len2, 0.0, 1.0) : 0.0;
+  return distance(p, a + t * d);
+}
 
-/// The angles at which region edges meet (at their ends, and where they cross).
+/// Local target element size at every vertex of the subdivision, from the distance to the nearest
+/// feature it does not touch (the neighbouring vertices and the constrained edges facing it in the
+/// constraints-only triangulation, in which a feature hidden behind another is never the
+/// nearest). Thin layers and short edges get small elements; re-entrant corners, where the heat
+/// flux is singular (θ − θc ∝ r^(2/3)), start several times finer.
+std::vector<SizeSeed> feature_sizes(const Cdt& cdt, double density) {
+  const double elements_across = 3.0 * density;
+  const double reflex_factor = 10.0;
+  std::vector<SizeSeed> seeds;
+  for (auto v = cdt.finite_vertices_begin(); v != cdt.finite_vertices_end(); ++v) {
+    const Point p = plain(v->point());
+    double nearest = std::numeric_limits<double>::infinity();
+    bool reflex = false;
+    // Faces around v, counter-clockwise; runs of one region add up to that region's angle at v.
+    std::vector<std::pair<int, double>> fan;  // (region, angle)
+    auto f = cdt.incident_faces(v), done = f;
+    do {
+      if (cdt.is_infinite(f)) {
+        fan.push_back({-1, 0.0});
+        continue;
+      }
+      const int i = f->index(v);
+      const Point q = plain(f->vertex(Cdt::ccw(i))->point()), r = plain(f->vertex(Cdt::cw(i))->point());
+      nearest = std::min({nearest, distance(p, q), distance(p, r)});
+      if (f->is_constrained(i)) nearest = std::min(nearest, point_segment_distance(p, q, r));
+      fan.push_back({f->info(), std::atan2(std::abs(cross(q - p, r - p)), dot(q - p, r - p))});
+    } while (++f != done);
+    const std::size_t n = fan.size();
+    std::size_t start = 0;
+    while (start < n && fan[start].first == fan[(start + n - 1) % n].first) ++start;
+    if (start < n) {
+      double run = 0.0;
+      for (std::size_t k = 0; k < n; ++k) {
+        const auto& [region, angle] = fan[(start + k) % n];
+        if (k > 0 && region != fan[(start + k - 1) % n].first) run = 0.0;
+        run += angle;
+        if (region >= 0 && run > 3.141592653589793 + 1e-9) reflex = true;
+      }
+    }
+    if (std::isfinite(nearest)) seeds.push_back({p, nearest / (elements_across * (reflex ? reflex_factor : 1.0))});
+  }
+  std::sort(seeds.begin(), seeds.end(), [](const SizeSeed& a, const SizeSeed& b) {
+    return std::tie(a.at.x, a.at.y, a.size) < std::tie(b.at.x, b.at.y, b.size);
+  });
+  return seeds;
+}
+
+/// The angles at which the subdivision's edges meet.
 struct SharpAngles {
   double smallest = 180.0;  ///< degrees
-  Point where{};
+  Point where{};            ///< local grid steps
   /// Extra nodes that sharp angles cost: inside a wedge of angle α the well-shaped elements at
   /// distance r from the tip are about r·α large, so the wedge takes about ln(L/r₀)/α of them.
   /// Measured on a 5 m taper: 12/α (α in radians) for α of 0.06–0.3°.
   double wedge_nodes = 0.0;
 };
 
-SharpAngles sharp_angles(const std::vector<Segment>& arrangement) {
-  std::vector<std::pair<Point, Point>> ends;  // (vertex, direction)
-  for (const Segment& s : arrangement) ends.push_back({s.a, s.b - s.a}), ends.push_back({s.b, s.a - s.b});
-  std::sort(ends.begin(), ends.end(), [](const auto& p, const auto& q) { return std::tie(p.first.x, p.first.y) < std::tie(q.first.x, q.first.y); });
+SharpAngles sharp_angles(const PlanarSubdivision& sub) {
+  std::vector<std::pair<int, Point>> ends;  // (vertex, direction)
+  for (const SubdivisionEdge& e : sub.edges) {
+    const Point a{static_cast<double>(sub.vertices[e.a].x), static_cast<double>(sub.vertices[e.a].y)};
+    const Point b{static_cast<double>(sub.vertices[e.b].x), static_cast<double>(sub.vertices[e.b].y)};
+    ends.push_back({e.a, b - a}), ends.push_back({e.b, a - b});
+  }
+  std::sort(ends.begin(), ends.end(), [](const auto& p, const auto& q) {
+    return std::tie(p.first, p.second.x, p.second.y) < std::tie(q.first, q.second.x, q.second.y);
+  });
   SharpAngles sharp;
-  constexpr double degree = 3.141592653589793 / 180.0;
   for (std::size_t i = 0; i < ends.size(); ++i)
-    for (std::size_t j = i + 1; j < ends.size() && ends[j].first.x == ends[i].first.x && ends[j].first.y == ends[i].first.y; ++j) {
+    for (std::size_t j = i + 1; j < ends.size() && ends[j].first == ends[i].first; ++j) {
       const Point u = ends[i].second, v = ends[j].second;
-      // Collinear ends are one edge drawn twice (two regions sharing it) or overlapping edges,
-      // which the arrangement merges: not a corner.
-      if (cross(u, v) == 0.0) continue;
       const double angle = std::atan2(std::abs(cross(u, v)), dot(u, v));
       if (angle < 20.0 * degree) sharp.wedge_nodes += 12.0 / std::max(angle, 1e-12);
-      if (angle / degree < sharp.smallest) sharp.smallest = angle / degree, sharp.where = ends[i].first;
+      if (angle / degree < sharp.smallest) {
+        sharp.smallest = angle / degree;
+        sharp.where = {static_cast<double>(sub.vertices[ends[i].first].x), static_cast<double>(sub.vertices[ends[i].first].y)};
+      }
     }
   return sharp;
 }
@@ -191,11 +234,11 @@ SharpAngles sharp_angles(const std::vector<Segment>& arrangement) {
 // far flatter than any screed or insulation fall, is 0.057°.
 constexpr double sharpest_meshable_angle = 0.05;  // degrees
 
-void reject_unmeshable_angle(const CrossSection& section, const SharpAngles& sharp) {
+void reject_unmeshable_angle(const CrossSection& section, const PlanarSubdivision& sub, const SharpAngles& sharp) {
   if (sharp.smallest >= sharpest_meshable_angle) return;
   throw_mesh_limit(section,
                    fmt::format("region edges meet at {:.4f}° at {}, sharper than the {}° the mesher can fill with "
-                               "well-shaped elements", sharp.smallest, section.format_point(sharp.where),
+                               "well-shaped elements", sharp.smallest, section.format_point(sub.metres(sharp.where)),
                                sharpest_meshable_angle),
                    "a tip that sharp is usually a drawing error: snap nearly coincident points together, or end the "
                    "tapering region in a short blunt edge across its tip");
@@ -207,181 +250,202 @@ void reject_unmeshable_angle(const CrossSection& section, const SharpAngles& sha
 struct RefinementBudget {
   std::size_t max_vertices;   ///< the documented node limit
   std::size_t budget;         ///< ≤ max_vertices
-  double expected;            ///< what the sizes (or the given points) ask for
-  const char* expected_what;  ///< "nodes the element sizes ask for" / "nodes of the refined mesh"
+  double expected;            ///< what the sizes ask for
 };
 
 // Measured on every shipped detail and reference case: the graded mesh has 0.61–1.07 × the
-// estimated nodes, and angle repair after adaptive refinement changes the count by under 5 %. Four
-// times the estimate, and at least 60 000 nodes (about 2 s of refinement), leaves room for any
-// honest section while ending a cascade early.
+// estimated nodes. Four times the estimate, and at least 60 000 nodes (about 2 s of refinement),
+// leaves room for any honest section while ending a cascade early.
 constexpr double budget_factor = 4.0;
 constexpr double budget_floor = 60'000.0;
 
-RefinementBudget make_budget(double expected, std::size_t max_vertices, const char* what) {
+RefinementBudget make_budget(double expected, std::size_t max_vertices) {
   const double budget = std::min(static_cast<double>(max_vertices), std::max(budget_floor, budget_factor * expected));
-  return {max_vertices, static_cast<std::size_t>(budget), expected, what};
+  return {max_vertices, static_cast<std::size_t>(budget), expected};
+}
+
+std::string smallest_angle_text(const CrossSection& section, const PlanarSubdivision& sub, const SharpAngles& sharp) {
+  return fmt::format("the smallest angle between region edges is {:.2f}° at {}", sharp.smallest,
+                     section.format_point(sub.metres(sharp.where)));
 }
 
 /// Runs Delaunay refinement step by step so a pathological input stops at its budget with a clear
 /// message instead of running for minutes or out of memory.
 template <class Criteria>
-void refine_guarded(const CrossSection& section, Cdt& cdt, const std::vector<CgalPoint>& seeds, const Criteria& criteria,
-                    const SharpAngles& sharp, const RefinementBudget& limits) {
+void refine_guarded(const CrossSection& section, const PlanarSubdivision& sub, Cdt& cdt,
+                    const std::vector<CgalPoint>& seeds, const Criteria& criteria, const SharpAngles& sharp,
+                    const RefinementBudget& limits) {
   CGAL::Delaunay_mesher_2<Cdt, Criteria> mesher(cdt, criteria);
   mesher.set_seeds(seeds.begin(), seeds.end(), true);
   mesher.init();
   while (mesher.step_by_step_refine_mesh()) {
     if (cdt.number_of_vertices() <= limits.budget) continue;
-    const std::string angle = fmt::format("the smallest angle between region edges is {:.2f}° at {}", sharp.smallest,
-                                          section.format_point(sharp.where));
     if (limits.budget >= limits.max_vertices)
       throw_mesh_limit(section,
                        fmt::format("the mesh reached the limit of {} nodes before its elements were well shaped (about "
-                                   "{:.3g} {}); {}", limits.max_vertices, limits.expected, limits.expected_what, angle),
+                                   "{:.3g} nodes the element sizes ask for); {}", limits.max_vertices, limits.expected,
+                                   smallest_angle_text(section, sub, sharp)),
                        "lower the density or the accuracy target, or cut the model at the cut-off planes ISO 10211 asks for");
     throw_mesh_limit(section,
-                     fmt::format("the mesher stopped at {} nodes, {:.0f} times the {:.3g} {}: refinement cascades, "
-                                 "usually where region edges meet at sharp angles; {}", cdt.number_of_vertices(),
-                                 cdt.number_of_vertices() / std::max(limits.expected, 1.0), limits.expected,
-                                 limits.expected_what, angle),
-                     "snap nearly coincident points together, end tapering regions in a short blunt edge across their "
-                     "tip, or give very thin slivers a thickness of their own");
+                     fmt::format("the mesher stopped at {} nodes, {:.0f} times the {:.3g} nodes the element sizes ask "
+                                 "for: refinement cascades, usually where region edges meet at sharp angles; {}",
+                                 cdt.number_of_vertices(), cdt.number_of_vertices() / std::max(limits.expected, 1.0),
+                                 limits.expected, smallest_angle_text(section, sub, sharp)),
+                     "end tapering regions in a short blunt edge across their tip, or give very thin slivers a "
+                     "thickness of their own");
   }
 }
 
-[[noreturn]] void refuse_sharp_corners(const CrossSection& section, const SharpAngles& sharp, std::size_t max_vertices) {
+[[noreturn]] void refuse_sharp_corners(const CrossSection& section, const PlanarSubdivision& sub, const SharpAngles& sharp,
+                                       std::size_t max_vertices) {
   throw_mesh_limit(section,
                    fmt::format("the sharp corners between region edges (the smallest {:.2f}° at {}) need about {:.3g} "
                                "nodes to be filled with well-shaped elements, more than the limit of {}",
-                               sharp.smallest, section.format_point(sharp.where), sharp.wedge_nodes, max_vertices),
+                               sharp.smallest, section.format_point(sub.metres(sharp.where)), sharp.wedge_nodes,
+                               max_vertices),
                    "draw corners sharper than about 20° only where the construction has them; a zigzag or a "
                    "serrated edge is better modelled as a layer of equivalent conductivity");
 }
 
-/// Fails at once when the sharp corners alone ask for more nodes than the limit.
-void check_sharp_corner_nodes(const CrossSection& section, const SharpAngles& sharp, std::size_t max_vertices) {
-  if (sharp.wedge_nodes > static_cast<double>(max_vertices)) refuse_sharp_corners(section, sharp, max_vertices);
-}
-
-/// Fails at once when the element sizes and sharp corners together ask for more nodes than the limit.
-void check_node_estimate(const CrossSection& section, double size_nodes, const SharpAngles& sharp, const SizeField& field,
-                         double extent, const std::vector<SizeSeed>& seeds, std::size_t max_vertices) {
+/// Fails at once when the element sizes and sharp corners together ask for more nodes than the
+/// limit, naming the feature that asks for the smallest elements.
+void check_node_estimate(const CrossSection& section, const PlanarSubdivision& sub, double size_nodes,
+                         const SharpAngles& sharp, double extent, const std::vector<SizeSeed>& seeds,
+                         std::size_t max_vertices) {
   if (size_nodes + sharp.wedge_nodes <= static_cast<double>(max_vertices)) return;
-  if (sharp.wedge_nodes > size_nodes) refuse_sharp_corners(section, sharp, max_vertices);
+  if (sharp.wedge_nodes > size_nodes) refuse_sharp_corners(section, sub, sharp, max_vertices);
   const auto finest = std::min_element(seeds.begin(), seeds.end(), [](const SizeSeed& a, const SizeSeed& b) { return a.size < b.size; });
-  const double smallest = finest == seeds.end() ? field.max_size() : std::min(finest->size, field.max_size());
+  const double extent_m = extent / grid_steps_per_metre;
+  std::string where;
+  if (finest != seeds.end())
+    where = fmt::format("; the smallest elements, {:.3g} mm, are asked for at {}, where features {:.3g} mm apart meet",
+                        finest->size / 100.0, section.format_point(sub.metres(finest->at)), 3.0 * finest->size / 100.0);
+  const std::string fix =
+      extent_m > 50.0
+          ? "check the unit of the coordinates (a section hundreds of metres across is usually millimetres written as "
+            "metres), cut the model at the cut-off planes ISO 10211 asks for, or lower the density"
+          : "cut the model at the cut-off planes ISO 10211 asks for, lower the density, or simplify the detail where "
+            "the smallest elements are asked for";
   throw_mesh_limit(section,
-                   fmt::format("the section is {:.4g} m across and its smallest features ask for elements of {:.3g} mm, "
-                               "so its mesh needs more than the limit of {} nodes", extent, 1e3 * smallest, max_vertices),
-                   "check the unit of the coordinates (a section kilometres across is usually metres written where "
-                   "millimetres were meant), cut the model at the cut-off planes ISO 10211 asks for, or lower the density");
+                   fmt::format("the section is {:.4g} m across and needs more than the limit of {} nodes{}", extent_m,
+                               max_vertices, where),
+                   fix);
 }
 
-RawTriangulation graded_triangulation(const CrossSection& section, const MeshOptions& options) {
-  // The corners of the outlines as drawn are a part of the corners the mesher will see (crossings
-  // add more): in linear time they already refuse a tip too sharp or too many sharp corners, before
-  // the arrangement, the size field and the painting, which grow faster with the number of edges.
-  {
-    const SharpAngles drawn = sharp_angles(region_segments(section));
-    reject_unmeshable_angle(section, drawn);
-    check_sharp_corner_nodes(section, drawn, options.max_nodes);
+/// Follows the constrained edges of the refined triangulation from a to b: the chain of vertices
+/// the refinement put on the subdivision edge a–b. Midpoints lie on the edge exactly, the split
+/// points near small angles within a unit of the last place; at each vertex the next one is the
+/// constrained neighbour nearer to b that lies closest to the line (another edge through the vertex
+/// is at least 0.05° off it, and every mesh edge is longer than a nanometre, so its far end is
+/// orders of magnitude further off).
+std::vector<Cdt::Vertex_handle> constrained_chain(const Cdt& cdt, Cdt::Vertex_handle a, Cdt::Vertex_handle b) {
+  const Point pa = plain(a->point()), pb = plain(b->point());
+  const double length = distance(pa, pb);
+  constexpr double on_line = 1e-6;  // grid steps: 10⁻¹¹ m
+  std::vector<Cdt::Vertex_handle> chain{a};
+  Cdt::Vertex_handle u = a;
+  while (u != b) {
+    Cdt::Vertex_handle next;
+    double best = on_line;
+    auto e = cdt.incident_edges(u), done = e;
+    do {
+      if (!cdt.is_constrained(*e) || cdt.is_infinite(*e)) continue;
+      const Cdt::Face_handle f = e->first;
+      const int i = e->second;
+      const Cdt::Vertex_handle w = f->vertex(Cdt::ccw(i)) == u ? f->vertex(Cdt::cw(i)) : f->vertex(Cdt::ccw(i));
+      if (!CGAL::has_smaller_distance_to_point(b->point(), w->point(), u->point())) continue;
+      const double deviation = std::abs(cross(pb - pa, plain(w->point()) - pa)) / length;
+      if (deviation <= best) best = deviation, next = w;
+    } while (++e != done);
+    if (next == Cdt::Vertex_handle() || chain.size() > cdt.number_of_vertices())
+      throw std::logic_error(fmt::format("the mesh lost the edge from ({}, {}) to ({}, {}) of the section", pa.x, pa.y,
+                                         pb.x, pb.y));
+    chain.push_back(next);
+    u = next;
   }
-  Cdt cdt;
-  const std::vector<Segment> arrangement = arranged_segments(section);
-  insert_constraints(arrangement, cdt);
-  // The domain comes from the region edges alone: probes and surface ends are points, not features
-  // whose thickness the elements must resolve.
-  const Domain domain = painted_domain(section, cdt);
-  const std::size_t given_points = insert_surface_and_probe_points(section, cdt);
-  double x_min = 1e300, y_min = 1e300;
-  for (const Region& region : section.regions)
-    for (Point p : region.outline) x_min = std::min(x_min, p.x), y_min = std::min(y_min, p.y);
-  const double extent = section_extent(section);
-  const std::vector<SizeSeed> size_seeds = feature_sizes(section, options.density);
-  const SizeField field(size_seeds, extent / (50.0 * options.density), 0.3 / std::sqrt(options.density), {x_min, y_min});
-  const SharpAngles sharp = sharp_angles(arrangement);
-  reject_unmeshable_angle(section, sharp);
-  // Sharp corners first: they are counted at once, the size field needs a quadrature.
-  const double limit = static_cast<double>(options.max_nodes);
-  const double size_nodes =
-      sharp.wedge_nodes > limit
-          ? 0.0
-          : static_cast<double>(given_points) + estimated_node_count(domain.triangles, field, limit - sharp.wedge_nodes);
-  check_node_estimate(section, size_nodes, sharp, field, extent, size_seeds, options.max_nodes);
-  const double estimate = size_nodes + sharp.wedge_nodes;
-  // Shape bound 0.125 is a minimum angle of about 20.7°, which the refinement always reaches.
-  GradedCriteria criteria(0.125, &field);
-  refine_guarded(section, cdt, domain.seeds, criteria, sharp, make_budget(estimate, options.max_nodes, "nodes the element sizes ask for"));
-  return painted_triangulation(section, cdt);
+  return chain;
 }
 
-/// Runs a meshing step, turning a failed CGAL consistency check into a MeshLimitError that says
-/// where the geometry is most delicate.
-/// CGAL reports a failed check on stderr before it throws (when built with clang); the message
-/// the user gets is ours, on one line, so CGAL's own stays silent.
-void silent_cgal_failure(const char*, const char*, const char*, int, const char*) {}
-
-template <class Step>
-RawTriangulation checked(const CrossSection& section, Step step) {
-  static std::once_flag silenced;
-  std::call_once(silenced, [] { CGAL::set_error_handler(silent_cgal_failure); });
-  try {
-    return step();
-  } catch (const CGAL::Failure_exception& e) {
-    const SharpAngles sharp = sharp_angles(arranged_segments(section));
-    throw_mesh_limit(section,
-                     fmt::format("the triangulation lost its consistency during refinement (CGAL: {}), which happens "
-                                 "where region edges cross at flat angles close to other corners; the smallest angle "
-                                 "between region edges is {:.2f}° at {}", e.expression(), sharp.smallest,
-                                 section.format_point(sharp.where)),
-                     "move crossing region edges apart or let them meet at a shared corner point, and avoid sharp "
-                     "corners next to the crossings");
-  }
-}
-
-}  // namespace
-
-RawTriangulation delaunay_triangulation(const CrossSection& section, const MeshOptions& options) {
-  return checked(section, [&] { return graded_triangulation(section, options); });
-}
-
-namespace {
-
-RawTriangulation painted_triangulation(const CrossSection& section, Cdt& cdt) {
+RawTriangulation painted_triangulation(const PlanarSubdivision& sub, Cdt& cdt,
+                                       const std::vector<Cdt::Vertex_handle>& vertex) {
+  paint_from_seeds(sub, cdt);
   RawTriangulation raw;
   raw.points.reserve(cdt.number_of_vertices());
   for (auto v = cdt.finite_vertices_begin(); v != cdt.finite_vertices_end(); ++v) {
     v->info() = static_cast<int>(raw.points.size());
-    raw.points.push_back({CGAL::to_double(v->point().x()), CGAL::to_double(v->point().y())});
-  }
-  // Faces between the same constraints share a region: paint one face per constrained component.
-  for (auto f = cdt.finite_faces_begin(); f != cdt.finite_faces_end(); ++f) f->info() = -2;
-  std::vector<Cdt::Face_handle> todo;
-  for (auto f = cdt.finite_faces_begin(); f != cdt.finite_faces_end(); ++f) {
-    if (f->info() != -2) continue;
-    const CgalPoint c = CGAL::centroid(f->vertex(0)->point(), f->vertex(1)->point(), f->vertex(2)->point());
-    const int region = painting_region(section, {CGAL::to_double(c.x()), CGAL::to_double(c.y())});
-    f->info() = region;
-    todo.push_back(f);
-    while (!todo.empty()) {
-      const Cdt::Face_handle g = todo.back();
-      todo.pop_back();
-      for (int k = 0; k < 3; ++k) {
-        const Cdt::Face_handle h = g->neighbor(k);
-        if (cdt.is_infinite(h) || g->is_constrained(k) || h->info() != -2) continue;
-        h->info() = region;
-        todo.push_back(h);
-      }
-    }
+    raw.points.push_back(sub.metres(plain(v->point())));
   }
   raw.triangles.reserve(cdt.number_of_faces());
   for (auto f = cdt.finite_faces_begin(); f != cdt.finite_faces_end(); ++f) {
     raw.triangles.push_back({f->vertex(0)->info(), f->vertex(1)->info(), f->vertex(2)->info()});
     raw.triangle_region.push_back(f->info());
   }
+  for (const SubdivisionEdge& e : sub.edges) {
+    if (e.surface < 0 && e.cut_off < 0) continue;
+    const auto chain = constrained_chain(cdt, vertex[e.a], vertex[e.b]);
+    for (std::size_t k = 0; k + 1 < chain.size(); ++k)
+      raw.tagged.push_back({chain[k]->info(), chain[k + 1]->info(), e.surface, e.cut_off});
+  }
   return raw;
 }
 
+RawTriangulation graded_triangulation(const CrossSection& section, const PlanarSubdivision& sub, const MeshOptions& options) {
+  Cdt cdt;
+  std::vector<Cdt::Vertex_handle> vertex;
+  vertex.reserve(sub.vertices.size());
+  for (GridPoint p : sub.vertices) vertex.push_back(cdt.insert(cgal_point(p)));
+  for (const SubdivisionEdge& e : sub.edges) cdt.insert_constraint(vertex[e.a], vertex[e.b]);
+  paint_from_seeds(sub, cdt);
+  const std::vector<std::array<Point, 3>> domain = painted_domain(cdt);
+  const std::vector<SizeSeed> size_seeds = feature_sizes(cdt, options.density);
+  // Probes become vertices so their temperature is a nodal value, free of interpolation error.
+  for (GridPoint p : sub.probes) cdt.insert(cgal_point(p));
+
+  double x_min = 1e300, y_min = 1e300, x_max = -1e300, y_max = -1e300;
+  for (GridPoint p : sub.vertices) {
+    x_min = std::min(x_min, static_cast<double>(p.x)), x_max = std::max(x_max, static_cast<double>(p.x));
+    y_min = std::min(y_min, static_cast<double>(p.y)), y_max = std::max(y_max, static_cast<double>(p.y));
+  }
+  const double extent = std::max(x_max - x_min, y_max - y_min);
+  const SizeField field(size_seeds, extent / (50.0 * options.density), 0.3 / std::sqrt(options.density), {x_min, y_min});
+  const SharpAngles sharp = sharp_angles(sub);
+  reject_unmeshable_angle(section, sub, sharp);
+  // Sharp corners first: they are counted at once, the size field needs a quadrature.
+  const double limit = static_cast<double>(options.max_nodes);
+  const double given_points = static_cast<double>(sub.vertices.size() + sub.probes.size());
+  const double size_nodes =
+      sharp.wedge_nodes > limit ? 0.0 : given_points + estimated_node_count(domain, field, limit - sharp.wedge_nodes);
+  check_node_estimate(section, sub, size_nodes, sharp, extent, size_seeds, options.max_nodes);
+  std::vector<CgalPoint> seeds;
+  for (const FaceSeed& s : sub.seeds) seeds.push_back(cgal_point(s.at));
+  // Shape bound 0.125 is a minimum angle of about 20.7°, which the refinement always reaches.
+  GradedCriteria criteria(0.125, &field);
+  refine_guarded(section, sub, cdt, seeds, criteria, sharp, make_budget(size_nodes + sharp.wedge_nodes, options.max_nodes));
+  return painted_triangulation(sub, cdt, vertex);
+}
+
+/// CGAL reports a failed check on stderr before it throws (when built with clang); the message
+/// the user gets is ours, on one line, so CGAL's own stays silent.
+void silent_cgal_failure(const char*, const char*, const char*, int, const char*) {}
+
 }  // namespace
+
+RawTriangulation delaunay_triangulation(const CrossSection& section, const PlanarSubdivision& sub, const MeshOptions& options) {
+  static std::once_flag silenced;
+  std::call_once(silenced, [] { CGAL::set_error_handler(silent_cgal_failure); });
+  try {
+    return graded_triangulation(section, sub, options);
+  } catch (const CGAL::Failure_exception& e) {
+    // Seen only on fuzzed sections with several near-flat corners close together, where split
+    // points near small angles (within a unit of the last place of their edge) meet.
+    const SharpAngles sharp = sharp_angles(sub);
+    throw_mesh_limit(section,
+                     fmt::format("the triangulation lost its consistency during refinement (CGAL: {}), which happens "
+                                 "where region edges meet at very flat angles close to other corners; {}",
+                                 e.expression(), smallest_angle_text(section, sub, sharp)),
+                     "let nearly parallel region edges meet at a shared corner point or move them apart, and avoid "
+                     "very sharp corners next to each other");
+  }
+}
+
 }  // namespace edgeflux

@@ -1,10 +1,14 @@
 // Structured right-triangle mesh for rectilinear sections: on it the vertex-centred finite-volume
 // scheme is exactly the five-point finite-difference stencil, second-order on graded grids.
+#include <fmt/format.h>
+
 #include <algorithm>
 #include <cmath>
 #include <limits>
 
 #include "geometry/cross_section.h"
+#include "geometry/planar_subdivision.h"
+#include "geometry/polygon.h"
 #include "mesh/mesh_cross_section.h"
 #include "mesh/raw_triangulation.h"
 
@@ -63,18 +67,53 @@ std::vector<double> graded_axis(const std::vector<double>& lines, double max_siz
   return coords;
 }
 
+/// Index of the last region whose outline contains p (regions paint in file order), or -1.
+int painting_region(const CrossSection& section, Point p) {
+  for (int r = static_cast<int>(section.regions.size()) - 1; r >= 0; --r)
+    if (contains(section.regions[r].outline, p)) return r;
+  return -1;
+}
+
+/// The mesh edges along the subdivision's surfaces and cut-offs: grid lines run through every
+/// vertex of the subdivision, so each such edge is a run of grid nodes on one grid line.
+std::vector<TaggedEdge> grid_tags(const CrossSection& section, const PlanarSubdivision& sub, const std::vector<double>& gx,
+                                  const std::vector<double>& gy) {
+  std::vector<TaggedEdge> tagged;
+  const int nx = static_cast<int>(gx.size());
+  auto index_of = [](const std::vector<double>& axis, double v) {
+    return static_cast<int>(std::lower_bound(axis.begin(), axis.end(), v) - axis.begin());
+  };
+  for (const SubdivisionEdge& e : sub.edges) {
+    if (e.surface < 0 && e.cut_off < 0) continue;
+    const Point a = sub.metres(sub.vertices[e.a]), b = sub.metres(sub.vertices[e.b]);
+    if (a.x != b.x && a.y != b.y)
+      throw_input_error({section.file, 0}, "mesh",
+                        fmt::format("the grid mesher needs every surface parallel to an axis, but the edge from {} to {} "
+                                    "is not (after rounding to the 0.01 mm grid)", section.format_point(a), section.format_point(b)),
+                        "use mesher=\"delaunay\" or \"automatic\"");
+    int i0 = index_of(gx, std::min(a.x, b.x)), i1 = index_of(gx, std::max(a.x, b.x));
+    int j0 = index_of(gy, std::min(a.y, b.y)), j1 = index_of(gy, std::max(a.y, b.y));
+    if (a.x == b.x)
+      for (int j = j0; j < j1; ++j) tagged.push_back({j * nx + i0, (j + 1) * nx + i0, e.surface, e.cut_off});
+    else
+      for (int i = i0; i < i1; ++i) tagged.push_back({j0 * nx + i, j0 * nx + i + 1, e.surface, e.cut_off});
+  }
+  return tagged;
+}
+
 }  // namespace
 
-RawTriangulation grid_triangulation(const CrossSection& section, const MeshOptions& options) {
+RawTriangulation grid_triangulation(const CrossSection& section, const PlanarSubdivision& sub, const MeshOptions& options) {
+  // Grid lines through every vertex of the subdivision, in metres as the subdivision gives them.
   std::vector<double> xs, ys;
-  for (const Region& region : section.regions)
-    for (Point p : region.outline) xs.push_back(p.x), ys.push_back(p.y);
-  for (const Surface& surface : section.surfaces)
-    for (Point p : surface.path) xs.push_back(p.x), ys.push_back(p.y);
+  for (GridPoint g : sub.vertices) {
+    const Point p = sub.metres(g);
+    xs.push_back(p.x), ys.push_back(p.y);
+  }
   const auto [x_min, x_max] = std::minmax_element(xs.begin(), xs.end());
   const auto [y_min, y_max] = std::minmax_element(ys.begin(), ys.end());
   const double extent = std::max(*x_max - *x_min, *y_max - *y_min);
-  const double tol = 1e-9 * extent;
+  const double tol = 0.0;  // grid points: equal or at least a grid step apart
   const double max_size = extent / (20.0 * options.density);
 
   const std::vector<double> gx = graded_axis(unique_sorted(xs, tol), max_size, options.density);
@@ -106,6 +145,7 @@ RawTriangulation grid_triangulation(const CrossSection& section, const MeshOptio
       raw.triangle_region.push_back(region);
     }
   }
+  raw.tagged = grid_tags(section, sub, gx, gy);
   return raw;
 }
 

@@ -1,5 +1,5 @@
-// From a raw painted triangulation to the solver's mesh: reject uncovered enclosed areas, drop the
-// outside, find the outer boundary and give each boundary edge its surface.
+// From a raw painted triangulation to the solver's mesh: drop the outside, find the outer boundary
+// and give each boundary edge its surface and cut-off.
 #include "mesh/mesh_cross_section.h"
 
 #include <fmt/format.h>
@@ -50,85 +50,6 @@ Point centroid(const RawTriangulation& raw, int t) {
   return (1.0 / 3.0) * (raw.points[tri[0]] + raw.points[tri[1]] + raw.points[tri[2]]);
 }
 
-/// Uncovered triangles reachable from the hull are outside the section; any other uncovered
-/// triangle lies in an area the model encloses but no region covers.
-void reject_enclosed_gaps(const CrossSection& section, const RawTriangulation& raw,
-                          const std::vector<std::array<int, 3>>& neighbours) {
-  const int n = static_cast<int>(raw.triangles.size());
-  std::vector<char> outside(n, 0);
-  std::vector<int> todo;
-  for (int t = 0; t < n; ++t) {
-    if (raw.triangle_region[t] >= 0) continue;
-    for (int k = 0; k < 3; ++k)
-      if (neighbours[t][k] < 0 && !outside[t]) outside[t] = 1, todo.push_back(t);
-  }
-  while (!todo.empty()) {
-    const int t = todo.back();
-    todo.pop_back();
-    for (int u : neighbours[t])
-      if (u >= 0 && raw.triangle_region[u] < 0 && !outside[u]) outside[u] = 1, todo.push_back(u);
-  }
-  for (int t = 0; t < n; ++t) {
-    if (raw.triangle_region[t] >= 0 || outside[t]) continue;
-    // Report the extent of this gap so the user can find it.
-    Point lo = centroid(raw, t), hi = lo;
-    todo.assign(1, t);
-    outside[t] = 1;
-    while (!todo.empty()) {
-      const int g = todo.back();
-      todo.pop_back();
-      for (int v : raw.triangles[g]) {
-        lo.x = std::min(lo.x, raw.points[v].x), lo.y = std::min(lo.y, raw.points[v].y);
-        hi.x = std::max(hi.x, raw.points[v].x), hi.y = std::max(hi.y, raw.points[v].y);
-      }
-      for (int u : neighbours[g])
-        if (u >= 0 && raw.triangle_region[u] < 0 && !outside[u]) outside[u] = 1, todo.push_back(u);
-    }
-    throw_input_error({section.file, 0}, "section",
-                      fmt::format("an area enclosed by the model is covered by no region, between {} and {}",
-                                  section.format_point(lo), section.format_point(hi)),
-                      "add a region (for example an air layer or the missing material) that covers this "
-                      "area, or extend a neighbouring region over it");
-  }
-}
-
-/// True when segment pq lies on the straight segment ab (within tol).
-bool lies_on(Point p, Point q, Point a, Point b, double tol) {
-  return distance_to_segment(p, a, b) <= tol && distance_to_segment(q, a, b) <= tol;
-}
-
-void tag_surfaces(const CrossSection& section, TriMesh& mesh, double tol) {
-  for (int s = 0; s < static_cast<int>(section.surfaces.size()); ++s) {
-    const Surface& surface = section.surfaces[s];
-    for (std::size_t k = 0; k + 1 < surface.path.size(); ++k) {
-      const Point a = surface.path[k], b = surface.path[k + 1];
-      double covered = 0.0;
-      for (BoundaryEdge& edge : mesh.boundary_edges) {
-        const Point p = mesh.points[edge.a], q = mesh.points[edge.b];
-        if (!lies_on(p, q, a, b, tol)) continue;
-        if (edge.surface >= 0 && edge.surface != s) {
-          const Surface& other = section.surfaces[edge.surface];
-          throw_input_error(surface.where, fmt::format("surface '{}'", surface.name),
-                            fmt::format("overlaps surface '{}' (line {}) along {} to {}", other.name,
-                                        other.where.line, section.format_point(p), section.format_point(q)),
-                            "give each part of the boundary to one surface only");
-        }
-        edge.surface = s;
-        covered += distance(p, q);
-      }
-      const double length = distance(a, b);
-      if (std::abs(covered - length) > 1e-6 * length + tol) {
-        throw_input_error(surface.where, fmt::format("surface '{}'", surface.name),
-                          fmt::format("the path segment from {} to {} does not lie on the outer boundary "
-                                      "of the section ({:.4g} % of its length does)",
-                                      section.format_point(a), section.format_point(b),
-                                      100.0 * covered / length),
-                          "give path points on the outline of the regions, in order along the boundary");
-      }
-    }
-  }
-}
-
 }  // namespace
 
 bool is_rectilinear(const CrossSection& section) {
@@ -144,10 +65,11 @@ bool is_rectilinear(const CrossSection& section) {
 
 namespace {
 
-/// The finishing step shared by all meshers: gaps, compaction, boundary edges, surface tags.
+/// The finishing step shared by all meshers: compaction, boundary edges, surface and cut-off tags.
 TriMesh finish_mesh(const CrossSection& section, const RawTriangulation& raw, const std::string& mesher) {
   const auto neighbours = triangle_neighbours(raw.triangles);
-  reject_enclosed_gaps(section, raw, neighbours);
+  std::unordered_map<EdgeKey, TaggedEdge, EdgeKeyHash> tags;
+  for (const TaggedEdge& e : raw.tagged) tags.emplace(EdgeKey{std::min(e.a, e.b), std::max(e.a, e.b)}, e);
 
   TriMesh mesh;
   mesh.mesher = mesher;
@@ -176,19 +98,19 @@ TriMesh finish_mesh(const CrossSection& section, const RawTriangulation& raw, co
     for (int k = 0; k < 3; ++k) {
       const int u = neighbours[t][k];
       if (u >= 0 && new_triangle[u] >= 0) continue;
-      mesh.boundary_edges.push_back(
-          {new_index[raw.triangles[t][k]], new_index[raw.triangles[t][(k + 1) % 3]], -1, new_triangle[t]});
+      const int a = raw.triangles[t][k], b = raw.triangles[t][(k + 1) % 3];
+      BoundaryEdge edge{new_index[a], new_index[b], -1, new_triangle[t]};
+      if (const auto it = tags.find({std::min(a, b), std::max(a, b)}); it != tags.end())
+        edge.surface = it->second.surface, edge.cut_off = it->second.cut_off;
+      mesh.boundary_edges.push_back(edge);
     }
   }
-  double extent = 0.0;
-  for (Point p : mesh.points) extent = std::max({extent, std::abs(p.x), std::abs(p.y)});
-  tag_surfaces(section, mesh, 1e-9 * std::max(extent, 1e-3));
   return mesh;
 }
 
 }  // namespace
 
-TriMesh mesh_cross_section(const CrossSection& section, const MeshOptions& options) {
+TriMesh mesh_cross_section(const CrossSection& section, const PlanarSubdivision& subdivision, const MeshOptions& options) {
   using Mesher = MeshSettings::Mesher;
   if (options.mesher == Mesher::grid && !is_rectilinear(section))
     throw_input_error({section.file, 0}, "mesh", "the grid mesher needs every region edge and surface "
@@ -196,16 +118,21 @@ TriMesh mesh_cross_section(const CrossSection& section, const MeshOptions& optio
   // Measured on ISO 10211 Case 2 (docs/method.md): the graded Delaunay mesh reaches a given
   // heat-flow error with fewer nodes than the tensor grid, whose refinement near a corner runs
   // along whole grid lines, so automatic means Delaunay; the grid stays available on request.
-  if (options.mesher == Mesher::grid) return finish_mesh(section, grid_triangulation(section, options), "grid");
+  if (options.mesher == Mesher::grid)
+    return finish_mesh(section, grid_triangulation(section, subdivision, options), "grid");
   // Very fine meshes: Delaunay refinement costs tens of µs per node, uniform subdivision a fraction
   // of that with the same grading and angles, so fine densities mesh at most at density 4 and
   // subdivide (each subdivision doubles the elements along every length).
   MeshOptions coarse = options;
   int subdivisions = 0;
   while (coarse.density > 4.0) coarse.density /= 2.0, ++subdivisions;
-  TriMesh mesh = finish_mesh(section, delaunay_triangulation(section, coarse), "delaunay");
+  TriMesh mesh = finish_mesh(section, delaunay_triangulation(section, subdivision, coarse), "delaunay");
   for (int k = 0; k < subdivisions; ++k) mesh = subdivide_mesh(mesh);
   return mesh;
+}
+
+TriMesh mesh_cross_section(const CrossSection& section, const MeshOptions& options) {
+  return mesh_cross_section(section, planar_subdivision(section), options);
 }
 
 TriMesh subdivide_mesh(const TriMesh& mesh) {
@@ -243,8 +170,8 @@ TriMesh subdivide_mesh(const TriMesh& mesh) {
         if (tri[k] == node) return 4 * e.triangle + k;
       return -1;
     };
-    fine.boundary_edges.push_back({e.a, m, e.surface, child_at(e.a)});
-    fine.boundary_edges.push_back({m, e.b, e.surface, child_at(e.b)});
+    fine.boundary_edges.push_back({e.a, m, e.surface, child_at(e.a), e.cut_off});
+    fine.boundary_edges.push_back({m, e.b, e.surface, child_at(e.b), e.cut_off});
   }
   return fine;
 }

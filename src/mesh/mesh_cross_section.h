@@ -5,6 +5,7 @@
 
 #include "core/error.h"
 #include "geometry/cross_section.h"
+#include "geometry/planar_subdivision.h"
 #include "mesh/tri_mesh.h"
 
 namespace edgeflux {
@@ -27,10 +28,13 @@ class MeshLimitError : public InputError {
   std::string reason_;
 };
 
-/// Meshes the section. Throws InputError for an area enclosed by the model but covered by no
-/// region, for a surface path that does not lie on the outer boundary and for region edges that
-/// meet at an angle too sharp to mesh; MeshLimitError for a mesh beyond the node limit or budget.
-/// Deterministic: the same section and options give the same mesh.
+/// Meshes the section's subdivision: its edges are kept exactly, its faces painted, its surface and
+/// cut-off edges tagged. Throws InputError for region edges that meet at an angle too sharp to
+/// mesh; MeshLimitError for a mesh beyond the node limit or budget. Deterministic: the same
+/// section and options give the same mesh.
+TriMesh mesh_cross_section(const CrossSection& section, const PlanarSubdivision& subdivision, const MeshOptions& options);
+
+/// The same in one call: builds the subdivision first (its warnings are dropped).
 TriMesh mesh_cross_section(const CrossSection& section, const MeshOptions& options);
 
 /// A finer mesh of the same section: every edge of a marked triangle is halved (its midpoint

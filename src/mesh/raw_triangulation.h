@@ -9,26 +9,29 @@
 
 namespace edgeflux {
 
+/// A mesh edge on a surface or a cut-off, by its two nodes (either order).
+struct TaggedEdge {
+  int a = 0, b = 0;
+  int surface = -1;  ///< index into CrossSection::surfaces, or -1
+  int cut_off = -1;  ///< index into CrossSection::flanking_elements, or -1
+};
+
 /// Triangles covering the section and possibly some area outside it; each painted with a region
 /// index, or -1 where no region covers it.
 struct RawTriangulation {
-  std::vector<Point> points;
+  std::vector<Point> points;                  ///< m
   std::vector<std::array<int, 3>> triangles;  ///< counter-clockwise
   std::vector<int> triangle_region;           ///< -1 = not covered
+  std::vector<TaggedEdge> tagged;             ///< every mesh edge along a surface or cut-off
 };
 
 struct CrossSection;
 struct MeshOptions;
+struct PlanarSubdivision;
 
-RawTriangulation grid_triangulation(const CrossSection& section, const MeshOptions& options);
-RawTriangulation delaunay_triangulation(const CrossSection& section, const MeshOptions& options);
-
-/// Index of the last region whose outline contains p (regions paint in file order), or -1.
-int painting_region(const CrossSection& section, Point p);
-
-/// Local target element size at every input vertex, from the distance to the nearest other
-/// feature (thin layers and short edges get small elements). Returns pairs of (point, size).
-struct SizeSeed { Point at; double size; };
-std::vector<SizeSeed> feature_sizes(const CrossSection& section, double density);
+RawTriangulation grid_triangulation(const CrossSection& section, const PlanarSubdivision& subdivision,
+                                    const MeshOptions& options);
+RawTriangulation delaunay_triangulation(const CrossSection& section, const PlanarSubdivision& subdivision,
+                                        const MeshOptions& options);
 
 }  // namespace edgeflux

@@ -135,10 +135,10 @@ TriMesh refine_mesh(const CrossSection& section, const TriMesh& previous, const 
     while (side < 3 && !(tri[side] == e.a && tri[(side + 1) % 3] == e.b)) ++side;
     const int m = side < 3 ? midpoint[edges.of_triangle[e.triangle][side]] : -1;
     if (m < 0) {
-      fine.boundary_edges.push_back({e.a, e.b, e.surface, child_with(e.triangle, e.a, e.b)});
+      fine.boundary_edges.push_back({e.a, e.b, e.surface, child_with(e.triangle, e.a, e.b), e.cut_off});
     } else {
-      fine.boundary_edges.push_back({e.a, m, e.surface, child_with(e.triangle, e.a, m)});
-      fine.boundary_edges.push_back({m, e.b, e.surface, child_with(e.triangle, m, e.b)});
+      fine.boundary_edges.push_back({e.a, m, e.surface, child_with(e.triangle, e.a, m), e.cut_off});
+      fine.boundary_edges.push_back({m, e.b, e.surface, child_with(e.triangle, m, e.b), e.cut_off});
     }
   }
   flip_to_delaunay(fine);

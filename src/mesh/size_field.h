@@ -6,9 +6,14 @@
 #include <vector>
 
 #include "core/point.h"
-#include "mesh/raw_triangulation.h"
 
 namespace edgeflux {
+
+/// A point that asks for elements of a given size (same length unit as the point).
+struct SizeSeed {
+  Point at;
+  double size;
+};
 
 /// Size field: each feature seed asks for its own size, growing linearly away from it, capped at
 /// max_size. A seed only matters within (max_size − size)/grading of itself, so seeds are kept in

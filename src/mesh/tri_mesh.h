@@ -15,6 +15,7 @@ struct BoundaryEdge {
   int a = 0, b = 0;   ///< node indices
   int surface = -1;   ///< index into CrossSection::surfaces, or -1 for adiabatic
   int triangle = -1;  ///< the triangle this edge belongs to
+  int cut_off = -1;   ///< index into CrossSection::flanking_elements whose cut-off runs here, or -1
 };
 
 struct TriMesh {

@@ -10,6 +10,7 @@
 #include <stdexcept>
 
 #include "core/process_memory.h"
+#include "geometry/planar_subdivision.h"
 #include "solver/error_indicator.h"
 #include "solver/solve_temperatures.h"
 
@@ -149,7 +150,8 @@ Calculation calculate(const CrossSection& section, const CalculationOptions& opt
   convergence.adaptive = options.adaptive;
   convergence.target = options.target;
   auto start = std::chrono::steady_clock::now();
-  TriMesh mesh = mesh_cross_section(section, mesh_options);
+  const PlanarSubdivision subdivision = planar_subdivision(section);
+  TriMesh mesh = mesh_cross_section(section, subdivision, mesh_options);
   double mesh_seconds = seconds_since(start);
   const std::optional<Point> jump = fixed_temperature_jump(section, mesh);
   convergence.singular_heat_flow = jump.has_value();
@@ -193,7 +195,7 @@ Calculation calculate(const CrossSection& section, const CalculationOptions& opt
     start = std::chrono::steady_clock::now();
     if (grid) {
       mesh_options.density *= 1.5;
-      mesh = mesh_cross_section(section, mesh_options);
+      mesh = mesh_cross_section(section, subdivision, mesh_options);
     } else if (convergence.singular_heat_flow) {
       mesh = subdivide_mesh(calc.mesh);
     } else {
@@ -224,6 +226,7 @@ Calculation calculate(const CrossSection& section, const CalculationOptions& opt
                                      "); the error bars show the accuracy reached");
   // Sanity guards: a result that breaks a physical law is marked in every output, never hidden.
   std::vector<std::string> guards = section.warnings;
+  guards.insert(guards.end(), subdivision.warnings.begin(), subdivision.warnings.end());
   const double balance = calc.heat_loss.field.balance.relative;
   if (!(std::abs(balance) < 1e-4))
     guards.push_back(fmt::format("the energy balance does not close: Σ Φ / (½ Σ |Φ|) = {:.2e}, above the ISO 10211 "

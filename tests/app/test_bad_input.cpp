@@ -113,15 +113,15 @@ TEST_CASE("bad input: one clear message, exit code 2, no output file") {
        {":12:", "environment 'in'", "only environment", "at least two environments"}},
       {"no temperature difference", replace(good, "temperature=\"-5\"", "temperature=\"20\""),
        {"all surfaces face environments at 20 °C", "different temperatures"}},
-      {"cut-off crossing no material", replace(good, "</boundaries>", "</boundaries><flanking-elements>"
+      {"cut-off away from the section", replace(good, "</boundaries>", "</boundaries><flanking-elements>"
                                               "<element id=\"wall\" cut-off=\"0,2000 300,2000\" length-internal=\"1000\"/></flanking-elements>"),
-       {":18:", "flanking element 'wall'", "crosses no material", "(0, 2000) mm"}},
+       {":18:", "flanking element 'wall'", "does not lie on the outline", "(0, 2000) mm", "1000.000 mm away"}},
       {"cut-off along a surface", replace(good, "</boundaries>", "</boundaries><flanking-elements>"
                                           "<element id=\"wall\" cut-off=\"0,0 0,1000\" length-internal=\"1000\"/></flanking-elements>"),
        {":18:", "flanking element 'wall'", "not adiabatic", "inner face"}},
-      {"cut-off not a straight boundary edge", replace(good, "</boundaries>", "</boundaries><flanking-elements>"
+      {"cut-off past the end of the boundary", replace(good, "</boundaries>", "</boundaries><flanking-elements>"
                                           "<element id=\"wall\" cut-off=\"0,0 400,0\" length-internal=\"1000\"/></flanking-elements>"),
-       {":18:", "not a straight boundary edge", "(400, 0) mm"}},
+       {":18:", "does not lie on the outline", "(400, 0) mm", "at (300, 0) mm"}},
       {"length missing for a requested system", replace(good, "</boundaries>", "</boundaries><flanking-elements dimension-systems=\"external\">"
                                           "<element id=\"wall\" cut-off=\"0,0 300,0\" length-internal=\"1000\"/></flanking-elements>"),
        {":18:", "flanking element 'wall'", "no external length", "length-external"}},
