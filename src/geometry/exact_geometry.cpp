@@ -35,8 +35,6 @@ std::vector<CgalBox> cgal_boxes(const std::vector<Box>& boxes) {
 
 // ---- snap rounding ------------------------------------------------------------------------------
 
-Point as_point(GridPoint p) { return {static_cast<double>(p.x), static_cast<double>(p.y)}; }
-
 double point_segment_distance(Point p, Point a, Point b) {
   const Point d = b - a, w = p - a;
   const double len2 = dot(d, d);
@@ -68,19 +66,20 @@ using SrKernel = CGAL::Exact_predicates_exact_constructions_kernel;
 using SrTraits = CGAL::Snap_rounding_traits_2<SrKernel>;
 
 /// CGAL's snap rounding centres pixels at half-integers; the shift by half a step puts our grid
-/// points at the centres, so a grid point snaps to itself.
-SrKernel::Point_2 pixel_centre(GridPoint p, double dx = 0.0) {
-  return SrKernel::Point_2(static_cast<double>(p.x) + 0.5 + dx, static_cast<double>(p.y) + 0.5);
-}
+/// points at the centres (a point in the pixel of grid point g lands in CGAL's pixel of g).
+SrKernel::Point_2 shifted(Point p, double dx = 0.0) { return SrKernel::Point_2(p.x + 0.5 + dx, p.y + 0.5); }
 
-std::vector<std::vector<GridPoint>> cgal_snap_rounding(const std::vector<std::array<GridPoint, 2>>& segments,
-                                                       const std::vector<GridPoint>& hot_points) {
+std::vector<std::vector<GridPoint>> cgal_snap_rounding(const std::vector<std::array<Point, 2>>& segments,
+                                                       const std::vector<Point>& hot_points) {
   std::vector<SrKernel::Segment_2> input;
   input.reserve(segments.size() + hot_points.size());
-  for (const auto& s : segments) input.emplace_back(pixel_centre(s[0]), pixel_centre(s[1]));
-  // A hot point enters as a segment a quarter step long, inside its own pixel: it makes the pixel
-  // hot and rounds to the point itself.
-  for (GridPoint p : hot_points) input.emplace_back(pixel_centre(p), pixel_centre(p, 0.25));
+  for (const auto& s : segments) input.emplace_back(shifted(s[0]), shifted(s[1]));
+  // A hot point enters as a segment too short to leave its pixel: it makes the pixel hot and
+  // rounds to the pixel's centre. (A segment of length zero is not allowed.)
+  for (Point p : hot_points) {
+    const double room = (static_cast<double>(grid_point(p).x) + 0.5) - p.x;  // to the pixel's right side, > 0
+    input.emplace_back(shifted(p), shifted(p, 0.5 * room));
+  }
   std::list<std::list<SrKernel::Point_2>> output;
   CGAL::snap_rounding_2<SrTraits>(input.begin(), input.end(), output, 1.0, true, true, 1);
   std::vector<std::vector<GridPoint>> polylines;
@@ -118,68 +117,67 @@ std::vector<std::pair<int, int>> overlapping_boxes(const std::vector<Box>& boxes
   return pairs;
 }
 
-std::vector<std::vector<GridPoint>> snap_rounded(const std::vector<std::array<GridPoint, 2>>& segments,
-                                                 const std::vector<GridPoint>& hot_points) {
+std::vector<std::vector<GridPoint>> snap_rounded(const std::vector<std::array<Point, 2>>& segments,
+                                                 const std::vector<Point>& hot_points) {
   // Snap rounding in exact arithmetic costs about 0.1 ms per segment. Most segments of a section
   // touch nothing but their neighbours at shared end points and pass no hot pixel: they round to
-  // themselves. Only segments that come within one step of another segment, or of a point they do
-  // not end at, are "involved" and go through the exact algorithm, together with every point
-  // within two steps of them (rerouting moves a segment by at most √2/2 of a step, so no other
-  // point can come into play).
+  // the centres of their end points' pixels. Only segments that come within one step of another
+  // segment, or of a point they do not end at, are "involved" and go through the exact algorithm,
+  // together with every point within two steps of them (a hot pixel is half a step wide and
+  // rerouting moves a segment by at most √2/2 of a step, so no other point can come into play).
   const std::size_t n = segments.size();
-  std::vector<GridPoint> points;  // distinct end points and hot points
+  std::vector<Point> points;  // distinct end points and hot points
   {
-    std::unordered_map<GridPoint, int, GridPointHash> seen;
-    auto add = [&](GridPoint p) {
-      if (seen.emplace(p, static_cast<int>(points.size())).second) points.push_back(p);
+    std::unordered_map<GridPoint, std::vector<int>, GridPointHash> seen;  // by pixel, then exact
+    auto add = [&](Point p) {
+      auto& bucket = seen[grid_point(p)];
+      for (int k : bucket)
+        if (points[k].x == p.x && points[k].y == p.y) return;
+      bucket.push_back(static_cast<int>(points.size()));
+      points.push_back(p);
     };
     for (const auto& s : segments) add(s[0]), add(s[1]);
-    for (GridPoint p : hot_points) add(p);
+    for (Point p : hot_points) add(p);
   }
   constexpr double reach = 2.0;
   std::vector<Box> segment_boxes(n), point_boxes(points.size());
   for (std::size_t i = 0; i < n; ++i) {
-    const Point a = as_point(segments[i][0]), b = as_point(segments[i][1]);
+    const Point a = segments[i][0], b = segments[i][1];
     segment_boxes[i] = {std::min(a.x, b.x) - reach, std::min(a.y, b.y) - reach, std::max(a.x, b.x) + reach,
                         std::max(a.y, b.y) + reach};
   }
-  for (std::size_t i = 0; i < points.size(); ++i) {
-    const Point p = as_point(points[i]);
-    point_boxes[i] = {p.x, p.y, p.x, p.y};
-  }
+  for (std::size_t i = 0; i < points.size(); ++i) point_boxes[i] = {points[i].x, points[i].y, points[i].x, points[i].y};
+  auto same = [](Point p, Point q) { return p.x == q.x && p.y == q.y; };
   std::vector<char> involved(n, 0);
   for (std::size_t i = 0; i < n; ++i)
-    if (segments[i][0] == segments[i][1]) involved[i] = 2;  // collapsed to a point: not a segment
+    if (grid_point(segments[i][0]) == grid_point(segments[i][1])) involved[i] = 2;  // within one pixel
   for (const auto& [i, j] : overlapping_boxes(segment_boxes)) {
     const auto &s = segments[i], &t = segments[j];
     if (involved[i] == 2 || involved[j] == 2) continue;
-    if (s[0] == t[0] || s[0] == t[1] || s[1] == t[0] || s[1] == t[1]) continue;  // see the point test
-    if (segment_distance(as_point(s[0]), as_point(s[1]), as_point(t[0]), as_point(t[1])) <= 1.0)
-      involved[i] = involved[j] = 1;
+    if (same(s[0], t[0]) || same(s[0], t[1]) || same(s[1], t[0]) || same(s[1], t[1])) continue;  // see the point test
+    if (segment_distance(s[0], s[1], t[0], t[1]) <= 1.0) involved[i] = involved[j] = 1;
   }
   const auto near_points = overlapping_boxes(segment_boxes, point_boxes);
   for (const auto& [i, k] : near_points) {
     const auto& s = segments[i];
-    if (involved[i] == 2 || points[k] == s[0] || points[k] == s[1]) continue;
-    if (point_segment_distance(as_point(points[k]), as_point(s[0]), as_point(s[1])) <= 1.0) involved[i] = 1;
+    if (involved[i] == 2 || same(points[k], s[0]) || same(points[k], s[1])) continue;
+    if (point_segment_distance(points[k], s[0], s[1]) <= 1.0) involved[i] = 1;
   }
-  std::vector<std::array<GridPoint, 2>> hard;
+  std::vector<std::array<Point, 2>> hard;
   std::vector<std::size_t> hard_index;
   for (std::size_t i = 0; i < n; ++i)
     if (involved[i] == 1) hard.push_back(segments[i]), hard_index.push_back(i);
   std::vector<char> is_hot(points.size(), 0);
   for (const auto& [i, k] : near_points)
-    if (involved[i] == 1 &&
-        point_segment_distance(as_point(points[k]), as_point(segments[i][0]), as_point(segments[i][1])) <= reach)
-      is_hot[k] = 1;
-  std::vector<GridPoint> hot;
+    if (involved[i] == 1 && point_segment_distance(points[k], segments[i][0], segments[i][1]) <= reach) is_hot[k] = 1;
+  std::vector<Point> hot;
   for (std::size_t k = 0; k < points.size(); ++k)
     if (is_hot[k]) hot.push_back(points[k]);
 
   std::vector<std::vector<GridPoint>> result(n);
   for (std::size_t i = 0; i < n; ++i) {
-    if (involved[i] == 2) result[i] = {segments[i][0]};
-    else if (involved[i] == 0) result[i] = {segments[i][0], segments[i][1]};
+    if (involved[i] == 2) result[i] = {grid_point(segments[i][0])};
+    else if (involved[i] == 0) result[i] = {grid_point(segments[i][0]), grid_point(segments[i][1])};
   }
   if (!hard.empty()) {
     std::vector<std::vector<GridPoint>> rounded = cgal_snap_rounding(hard, hot);

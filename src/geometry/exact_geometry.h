@@ -4,6 +4,7 @@
 #pragma once
 
 #include <array>
+#include <cmath>
 #include <utility>
 #include <vector>
 
@@ -11,15 +12,21 @@
 
 namespace edgeflux {
 
+/// The grid point whose pixel (the unit square centred on it, half-open) contains p; p in grid steps.
+inline GridPoint grid_point(Point p) {
+  return {static_cast<std::int64_t>(std::floor(p.x + 0.5)), static_cast<std::int64_t>(std::floor(p.y + 0.5))};
+}
+
 /// Iterated snap rounding (Hobby's snap rounding, iterated after Halperin and Packer) of segments
-/// between grid points, in grid steps. Every segment becomes the polyline through the centres of the
-/// hot pixels it passes (a hot pixel is the unit square around an end point of any segment, a point
-/// of `hot_points` or a crossing), repeated until no piece passes a hot pixel it does not end in.
-/// Afterwards no two pieces cross, overlap partly or pass within half a step of a point they do not
-/// end at. Returns one polyline per segment, in input order (a single point when the segment
-/// collapses). Deterministic.
-std::vector<std::vector<GridPoint>> snap_rounded(const std::vector<std::array<GridPoint, 2>>& segments,
-                                                 const std::vector<GridPoint>& hot_points);
+/// given in grid steps. A pixel is hot when it holds an end point of any segment, a point of
+/// `hot_points` or a crossing; every segment becomes the polyline through the centres of the hot
+/// pixels it passes, repeated until no piece passes a hot pixel it does not end in. Segments that
+/// run along each other pass the same pixels and so become the same pieces. Afterwards no two
+/// pieces cross or overlap partly, and none passes within half a step of a point it does not end at.
+/// Returns one polyline per segment, in input order (a single point when the segment lies in one
+/// pixel). Deterministic.
+std::vector<std::vector<GridPoint>> snap_rounded(const std::vector<std::array<Point, 2>>& segments,
+                                                 const std::vector<Point>& hot_points);
 
 /// An axis-parallel box, closed.
 struct Box {

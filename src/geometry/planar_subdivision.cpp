@@ -161,7 +161,7 @@ std::optional<std::string> snap_points_onto_edges(const CrossSection& section, c
                      section.format_point(frame.metres(largest_at)), moved == 1 ? "it was" : "they were");
 }
 
-GridPoint rounded(Point p) { return {std::llround(p.x), std::llround(p.y)}; }
+GridPoint rounded(Point p) { return grid_point(p); }
 
 /// The pieces the outlines are cut into by snap rounding, each once, with the regions whose
 /// outline runs along it an odd number of times (crossing the piece enters or leaves them).
@@ -171,11 +171,11 @@ struct Pieces {
   std::vector<std::vector<int>> toggles;
 };
 
-Pieces snapped_pieces(const DrawnGeometry& g, const std::vector<GridPoint>& marks) {
-  std::vector<std::array<GridPoint, 2>> segments;
+Pieces snapped_pieces(const DrawnGeometry& g) {
+  std::vector<std::array<Point, 2>> segments;
   segments.reserve(g.edges.size());
-  for (const auto& e : g.edges) segments.push_back({rounded(g.corners[e[0]]), rounded(g.corners[e[1]])});
-  const std::vector<std::vector<GridPoint>> polylines = snap_rounded(segments, marks);
+  for (const auto& e : g.edges) segments.push_back({g.corners[e[0]], g.corners[e[1]]});
+  const std::vector<std::vector<GridPoint>> polylines = snap_rounded(segments, g.marks);
   Pieces pieces;
   std::unordered_map<GridPoint, int, GridHash> point_of;
   std::unordered_map<long long, int> piece_of;
@@ -304,7 +304,7 @@ PlanarSubdivision planar_subdivision(const CrossSection& section) {
   for (std::size_t k = first_probe; k < marks.size(); ++k) probe_queries.push_back(as_point(marks[k]));
   std::vector<char> owns_area, is_member;
   const PaintedTriangulation painted =
-      painted_triangulation(snapped_pieces(drawn, marks), probe_queries, section.regions.size(), owns_area, is_member);
+      painted_triangulation(snapped_pieces(drawn), probe_queries, section.regions.size(), owns_area, is_member);
 
   check_enclosed_gaps(section, sub, painted);
   check_region_visibility(section, sub, owns_area, is_member);

@@ -399,7 +399,8 @@ RawTriangulation graded_triangulation(const CrossSection& section, const PlanarS
   const std::vector<std::array<Point, 3>> domain = painted_domain(cdt);
   const std::vector<SizeSeed> size_seeds = feature_sizes(cdt, options.density);
   // Probes become vertices so their temperature is a nodal value, free of interpolation error.
-  for (GridPoint p : sub.probes) cdt.insert(cgal_point(p));
+  std::vector<Cdt::Vertex_handle> probes;
+  for (GridPoint p : sub.probes) probes.push_back(cdt.insert(cgal_point(p)));
 
   double x_min = 1e300, y_min = 1e300, x_max = -1e300, y_max = -1e300;
   for (GridPoint p : sub.vertices) {
@@ -421,7 +422,9 @@ RawTriangulation graded_triangulation(const CrossSection& section, const PlanarS
   // Shape bound 0.125 is a minimum angle of about 20.7°, which the refinement always reaches.
   GradedCriteria criteria(0.125, &field);
   refine_guarded(section, sub, cdt, seeds, criteria, sharp, make_budget(size_nodes + sharp.wedge_nodes, options.max_nodes));
-  return painted_triangulation(sub, cdt, vertex);
+  RawTriangulation raw = painted_triangulation(sub, cdt, vertex);
+  for (const Cdt::Vertex_handle& v : probes) raw.probe_nodes.push_back(v->info());
+  return raw;
 }
 
 /// CGAL reports a failed check on stderr before it throws (when built with clang); the message

@@ -105,6 +105,7 @@ TriMesh finish_mesh(const CrossSection& section, const RawTriangulation& raw, co
       mesh.boundary_edges.push_back(edge);
     }
   }
+  for (int node : raw.probe_nodes) mesh.probe_nodes.push_back(node < 0 ? -1 : new_index[node]);
   return mesh;
 }
 
@@ -141,6 +142,7 @@ TriMesh subdivide_mesh(const TriMesh& mesh) {
   fine.points = mesh.points;
   const EdgeTable edges = edge_table(mesh);
   std::vector<int> midpoint(edges.ends.size());
+  fine.probe_nodes = mesh.probe_nodes;
   fine.points.reserve(mesh.points.size() + edges.ends.size());
   for (std::size_t e = 0; e < edges.ends.size(); ++e) {
     midpoint[e] = static_cast<int>(fine.points.size());

@@ -23,6 +23,7 @@ struct RawTriangulation {
   std::vector<std::array<int, 3>> triangles;  ///< counter-clockwise
   std::vector<int> triangle_region;           ///< -1 = not covered
   std::vector<TaggedEdge> tagged;             ///< every mesh edge along a surface or cut-off
+  std::vector<int> probe_nodes;               ///< per probe, its point index, or -1
 };
 
 struct CrossSection;

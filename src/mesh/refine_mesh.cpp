@@ -71,6 +71,7 @@ TriMesh refine_mesh(const CrossSection& section, const TriMesh& previous, const 
   TriMesh fine;
   fine.mesher = previous.mesher;
   fine.points = previous.points;
+  fine.probe_nodes = previous.probe_nodes;
   std::vector<int> midpoint(n_edges, -1);
   for (int e = 0; e < n_edges; ++e) {
     if (!split[e]) continue;

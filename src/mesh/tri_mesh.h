@@ -24,6 +24,7 @@ struct TriMesh {
   std::vector<int> triangle_region;            ///< #T, index of the region that paints it
   std::vector<int> triangle_material;          ///< #T, index into CrossSection::materials
   std::vector<BoundaryEdge> boundary_edges;    ///< every edge with a triangle on one side only
+  std::vector<int> probe_nodes;                ///< per CrossSection::probes entry, its node, or -1 (locate it)
   std::string mesher;                          ///< "grid" or "delaunay", for reports
 
   int n_points() const { return static_cast<int>(points.size()); }

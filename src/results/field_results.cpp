@@ -200,12 +200,14 @@ FieldResults evaluate_field(const CrossSection& section, const TriMesh& mesh, co
     r.coupling_2d = flow_from_a / delta;
   }
 
+  // A probe the mesher made a node (on the 0.01 mm grid) reads its nodal value; others are located.
   std::vector<Point> probe_points;
   for (const Probe& probe : section.probes) probe_points.push_back(probe.at);
   const auto probe_values = temperatures_at(mesh, temperature, probe_points);
   for (std::size_t k = 0; k < section.probes.size(); ++k) {
     const Probe& probe = section.probes[k];
-    const auto& value = probe_values[k];
+    const int node = k < mesh.probe_nodes.size() ? mesh.probe_nodes[k] : -1;
+    const std::optional<double> value = node >= 0 ? std::optional<double>(temperature[node]) : probe_values[k];
     if (!value)
       throw_input_error(probe.where, fmt::format("probe '{}'", probe.name),
                         fmt::format("lies outside the section at {}", section.format_point(probe.at)),

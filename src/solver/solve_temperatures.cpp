@@ -155,7 +155,7 @@ Solution SteadyConduction::solve(const std::vector<double>& surface_resistance, 
       solver.factorize(a);
       info.factorize_seconds = seconds_since(start);
       if (solver.info() != Eigen::Success) {
-        info.message = "the conduction matrix could not be factorised (is some part of the section connected to no surface?)";
+        info.message = "the conduction matrix could not be factorised: it is not positive definite";
         return false;
       }
       start = std::chrono::steady_clock::now();

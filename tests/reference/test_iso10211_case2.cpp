@@ -3,6 +3,7 @@
 
 #include <cmath>
 
+#include "../support/transformed_section.h"
 #include "../test_support.h"
 
 using namespace edgeflux;
@@ -55,5 +56,17 @@ TEST_CASE("ISO 10211 Case 2 on fixed meshes of both kinds: the flow error falls 
       previous_error = error;
     }
     CHECK(previous_error <= 1e-3 * converged_heat_flow);  // 0.1 % at density 4 with either mesher
+  }
+}
+
+TEST_CASE("ISO 10211 Case 2 turned by 17°, 30° and 36.87° (rectangles as rotated polygons, 12-digit coordinates) "
+          "and moved far away still passes") {
+  const CrossSection section = read_detail_file(test::source_path("tests/reference/iso10211_case2.xml"));
+  for (double degrees : {17.0, 30.0, 36.8698976458440}) {
+    CAPTURE(degrees);
+    const Calculation calc = calculate(test::turned_section(section, degrees, {12345.678, -9876.543}), {});
+    check_case2(calc, 0.05);
+    const double flow = calc.heat_loss.field.environments[0].heat_flow;
+    CHECK(std::abs(flow - converged_heat_flow) <= 1e-3 * converged_heat_flow);
   }
 }
