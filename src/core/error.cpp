@@ -3,6 +3,9 @@
 
 #include <fmt/format.h>
 
+#include <algorithm>
+#include <cmath>
+
 namespace edgeflux {
 
 std::string format_input_error(const SourceLocation& where, const std::string& object, const std::string& problem,
@@ -19,8 +22,25 @@ void throw_input_error(const SourceLocation& where, const std::string& object,
   throw InputError(format_input_error(where, object, problem, fix));
 }
 
+namespace {
+
+/// A coordinate to 0.001 mm (the model's grid is 0.01 mm), without trailing zeros.
+std::string coordinate_text(double value, int decimals) {
+  std::string text = fmt::format("{:.{}f}", value, decimals);
+  if (text.find('.') != std::string::npos) {
+    while (text.back() == '0') text.pop_back();
+    if (text.back() == '.') text.pop_back();
+  }
+  if (text == "-0") text = "0";
+  return text;
+}
+
+}  // namespace
+
 std::string format_point_for_user(double x_m, double y_m, double metres_per_unit, const char* unit) {
-  return fmt::format("({:.6g}, {:.6g}) {}", x_m / metres_per_unit, y_m / metres_per_unit, unit);
+  const int decimals = std::max(0, 3 + static_cast<int>(std::lround(std::log10(metres_per_unit / 0.001))));
+  return fmt::format("({}, {}) {}", coordinate_text(x_m / metres_per_unit, decimals),
+                     coordinate_text(y_m / metres_per_unit, decimals), unit);
 }
 
 }  // namespace edgeflux

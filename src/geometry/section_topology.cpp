@@ -108,7 +108,7 @@ void check_point_contacts(const CrossSection& section, const PlanarSubdivision& 
     } while (t >= 0 && t != start && fan.size() <= static_cast<std::size_t>(n));
     if (on_hull) fan.push_back(-1);
     // Painted runs around the point, read cyclically.
-    int runs = 0, first_run_region = -1, second_run_region = -1;
+    int runs = 0, first_run_region = -1, second_run_region = -1;  // named in file order below
     for (std::size_t i = 0; i < fan.size(); ++i) {
       const int previous = fan[(i + fan.size() - 1) % fan.size()];
       if (fan[i] >= 0 && previous < 0) {
@@ -117,6 +117,7 @@ void check_point_contacts(const CrossSection& section, const PlanarSubdivision& 
       }
     }
     if (runs < 2) continue;
+    if (first_run_region > second_run_region) std::swap(first_run_region, second_run_region);
     throw_input_error({section.file, 0}, "section",
                       fmt::format("regions {} and {} touch only at the point {}, with no material around it on two "
                                   "sides: the heat passing through a contact of zero width depends on the mesh, not on "
