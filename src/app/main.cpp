@@ -56,7 +56,6 @@ ParameterOverrides parse_settings(const std::vector<std::string>& settings) {
 }
 
 int run_solve(const SolveArgs& args) {
-  const CrossSection section = read_detail_file(args.detail_file, parse_settings(args.parameter_settings));
   CalculationOptions options;
   if (args.density > 0.0) options.density = args.density;
   if (args.mesher == "grid") options.mesher = MeshSettings::Mesher::grid;
@@ -68,6 +67,8 @@ int run_solve(const SolveArgs& args) {
   options.adaptive = !args.fixed_mesh;
   options.target = args.target;
 
+  const CrossSection section =
+      read_detail_file(args.detail_file, parse_settings(args.parameter_settings), arc_tolerance_for(options.target));
   const Calculation calc = calculate(section, options);
   // Every output is built in memory first, so a failure leaves no file behind.
   std::vector<OutputFile> files;

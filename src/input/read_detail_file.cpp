@@ -15,6 +15,7 @@
 #include <string_view>
 #include <unordered_map>
 
+#include "geometry/arc_points.h"
 #include "geometry/validate_cross_section.h"
 #include <muParser.h>
 
@@ -45,7 +46,8 @@ constexpr double min_environment_temperature = -100.0, max_environment_temperatu
 
 class Reader {
  public:
-  Reader(std::string file, const ParameterOverrides& overrides) : file_(std::move(file)), overrides_(overrides) {}
+  Reader(std::string file, const ParameterOverrides& overrides, double arc_tolerance)
+      : file_(std::move(file)), overrides_(overrides), arc_tolerance_(arc_tolerance) {}
 
   CrossSection read(const std::string& text) {
     tinyxml2::XMLDocument doc;
@@ -118,6 +120,7 @@ class Reader {
  private:
   std::string file_;
   ParameterOverrides overrides_;
+  double arc_tolerance_;
   CrossSection section_;
   // muparser keeps pointers to the variables: stable storage, one slot per parameter.
   std::vector<std::unique_ptr<double>> parameter_values_;
@@ -316,12 +319,96 @@ class Reader {
   /// "x,y x,y ..." in the file's unit → metres.
   std::vector<Point> parse_points(const XMLElement* e, const char* attribute) const {
     std::string text = expand(required_text(e, attribute), e, fmt::format("attribute \"{}\"", attribute));
+    if (text.find('(') != std::string::npos)
+      throw_input_error(where(e), describe(e), fmt::format("attribute \"{}\" takes points only, no arcs", attribute),
+                        "give points as x,y pairs separated by spaces, e.g. \"0,0 200,0\"");
+    return numbers_to_points(e, attribute, split_numbers(text, e, attribute));
+  }
+
+  std::vector<double> split_numbers(std::string text, const XMLElement* e, const char* attribute) const {
     std::replace(text.begin(), text.end(), ',', ' ');
     std::replace(text.begin(), text.end(), ';', ' ');
     std::istringstream in(text);
     std::vector<double> numbers;
     for (std::string token; in >> token;)
       numbers.push_back(parse_number(token, e, fmt::format("coordinate in \"{}\"", attribute)));
+    return numbers;
+  }
+
+  /// A point list that may contain arcs: "x,y ccw(cx,cy) x,y" makes the edge between the two points
+  /// the circular arc about (cx, cy), turning counter-clockwise ("cw(…)": clockwise). In a closed
+  /// outline an arc after the last point closes it; a path from a point round to the same point is
+  /// a full circle. Arcs come back as chords (arc_points, the reader's chord tolerance).
+  std::vector<Point> parse_outline(const XMLElement* e, const char* attribute, bool closed) const {
+    const std::string text = expand(required_text(e, attribute), e, fmt::format("attribute \"{}\"", attribute));
+    struct Item {
+      std::vector<Point> points;  // the points written before the arc marker
+      bool has_arc = false;
+      Point centre{};
+      bool counter_clockwise = true;
+    };
+    std::vector<Item> items(1);
+    std::size_t at = 0;
+    while (at < text.size()) {
+      const std::size_t open = text.find('(', at);
+      const std::string plain = text.substr(at, open == std::string::npos ? std::string::npos : open - at);
+      std::size_t word = plain.find_last_not_of("abcdefghijklmnopqrstuvwxyz");
+      word = word == std::string::npos ? 0 : word + 1;
+      for (Point p : numbers_to_points(e, attribute, split_numbers(plain.substr(0, word), e, attribute)))
+        items.back().points.push_back(p);
+      if (open == std::string::npos) break;
+      const std::string marker = plain.substr(word);
+      const std::size_t close = text.find(')', open);
+      if ((marker != "ccw" && marker != "cw") || close == std::string::npos)
+        throw_input_error(where(e), describe(e),
+                          fmt::format("in attribute \"{}\", \"{}(\" is not an arc (write ccw(cx,cy) or cw(cx,cy))",
+                                      attribute, marker),
+                          "write an arc between two points as ccw(cx,cy) or cw(cx,cy): the centre, and the direction "
+                          "it turns from the point before to the point after");
+      const std::vector<Point> centre =
+          numbers_to_points(e, attribute, split_numbers(text.substr(open + 1, close - open - 1), e, attribute));
+      if (centre.size() != 1 || items.back().points.empty())
+        throw_input_error(where(e), describe(e),
+                          fmt::format("in attribute \"{}\", the arc {}(…) needs one centre x,y and a point before it",
+                                      attribute, marker),
+                          "write e.g. \"100,0 ccw(0,0) 0,100\": from (100, 0) counter-clockwise about (0, 0) to (0, 100)");
+      items.back().has_arc = true;
+      items.back().centre = centre[0];
+      items.back().counter_clockwise = marker == "ccw";
+      items.emplace_back();
+      at = close + 1;
+    }
+    // Flatten: an arc runs from the last point of its item to the first point of the next (or,
+    // closing an outline, to the very first point).
+    std::vector<Point> points;
+    for (std::size_t i = 0; i < items.size(); ++i) {
+      const Item& item = items[i];
+      points.insert(points.end(), item.points.begin(), item.points.end());
+      if (!item.has_arc) continue;
+      const bool last = i + 1 == items.size() - 1 && items.back().points.empty();
+      Point to;
+      if (i + 1 < items.size() && !items[i + 1].points.empty()) to = items[i + 1].points.front();
+      else if (closed && last) to = points.front();
+      else
+        throw_input_error(where(e), describe(e),
+                          fmt::format("in attribute \"{}\", an arc has no point after it", attribute),
+                          closed ? "end the arc at a point, or put it last to close the outline"
+                                 : "give the point where the arc ends after it");
+      const Point from = item.points.back(), centre = item.centre;
+      const double r_from = distance(from, centre), r_to = distance(to, centre);
+      if (std::abs(r_from - r_to) > 1e-5 || r_from <= 0.0)
+        throw_input_error(where(e), describe(e),
+                          fmt::format("the arc from {} to {} about {} does not fit a circle: its ends are {:.6g} and "
+                                      "{:.6g} {} from the centre", section_.format_point(from), section_.format_point(to),
+                                      section_.format_point(centre), r_from / section_.metres_per_unit,
+                                      r_to / section_.metres_per_unit, section_.unit),
+                          "give the centre and two ends at the same distance from it (within 0.01 mm)");
+      for (Point p : arc_points(from, to, centre, item.counter_clockwise, arc_tolerance_)) points.push_back(p);
+    }
+    return points;
+  }
+
+  std::vector<Point> numbers_to_points(const XMLElement* e, const char* attribute, const std::vector<double>& numbers) const {
     if (numbers.size() % 2 != 0)
       throw_input_error(where(e), describe(e),
                         fmt::format("attribute \"{}\" has an odd number of coordinates ({})", attribute, numbers.size()),
@@ -408,14 +495,27 @@ class Reader {
         region.outline = {{x0, y0}, {x1, y0}, {x1, y1}, {x0, y1}};
       } else if (kind == "polygon") {
         allow_attributes(e, {"name", "material", "points"});
-        region.outline = parse_points(e, "points");
+        region.outline = parse_outline(e, "points", true);
         // The outline closes itself; a repeated first point at the end is accepted and dropped.
         if (region.outline.size() > 1 && region.outline.front().x == region.outline.back().x &&
             region.outline.front().y == region.outline.back().y)
           region.outline.pop_back();
+      } else if (kind == "circle") {
+        allow_attributes(e, {"name", "material", "centre", "radius"});
+        const Point centre = parse_point(e, "centre");
+        const double radius = required_number(e, "radius") * section_.metres_per_unit;
+        if (!(radius >= 1e-5) || radius > max_abs_coordinate_m)
+          throw_input_error(where(e), describe(e), fmt::format("radius {:g} {} is below the 0.01 mm resolution or beyond the coordinate limit",
+                                                               radius / section_.metres_per_unit, section_.unit),
+                            "give the radius in the file's unit, larger than 0.01 mm");
+        const Point start{centre.x + radius, centre.y};
+        region.outline = {start};
+        for (Point p : arc_points(start, start, centre, true, arc_tolerance_)) region.outline.push_back(p);
       } else {
-        throw_input_error(where(e), fmt::format("<{}>", kind), "only <rectangle> and <polygon> belong inside <regions>",
-                          "describe the area as a rectangle (from, to) or a polygon (points)");
+        throw_input_error(where(e), fmt::format("<{}>", kind),
+                          "only <rectangle>, <polygon> and <circle> belong inside <regions>",
+                          "describe the area as a rectangle (from, to), a polygon (points, with arcs if curved) or a "
+                          "circle (centre, radius)");
       }
       region.name = optional_text(e, "name", "");
       if (region.name.empty()) region.name = fmt::format("{} {}", kind, section_.regions.size() + 1);
@@ -500,7 +600,7 @@ class Reader {
                           "only <surface> and <fixed-temperature> belong inside <boundaries>",
                           "every boundary edge not named by one of them is adiabatic");
       }
-      surface.path = parse_points(e, "path");
+      surface.path = parse_outline(e, "path", false);
       if (surface.path.size() < 2)
         throw_input_error(where(e), describe(e), "the path needs at least two points",
                           "give the path as points along the boundary, e.g. \"0,0 0,1000\"");
@@ -699,18 +799,19 @@ class Reader {
 
 }  // namespace
 
-CrossSection parse_detail_text(const std::string& text, const std::string& file_name, const ParameterOverrides& overrides) {
-  return Reader(file_name, overrides).read(text);
+CrossSection parse_detail_text(const std::string& text, const std::string& file_name, const ParameterOverrides& overrides,
+                               double arc_tolerance) {
+  return Reader(file_name, overrides, arc_tolerance).read(text);
 }
 
-CrossSection read_detail_file(const std::string& path, const ParameterOverrides& overrides) {
+CrossSection read_detail_file(const std::string& path, const ParameterOverrides& overrides, double arc_tolerance) {
   std::ifstream in(path, std::ios::binary);
   if (!in)
     throw_input_error({path, 0}, "detail file", "cannot be opened (missing or unreadable)",
                       "check the path; run 'edgeflux solve --help' for usage");
   std::ostringstream text;
   text << in.rdbuf();
-  return parse_detail_text(text.str(), path, overrides);
+  return parse_detail_text(text.str(), path, overrides, arc_tolerance);
 }
 
 }  // namespace edgeflux

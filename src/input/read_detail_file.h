@@ -4,6 +4,7 @@
 #include <map>
 #include <string>
 
+#include "geometry/arc_points.h"
 #include "geometry/cross_section.h"
 
 namespace edgeflux {
@@ -13,10 +14,13 @@ namespace edgeflux {
 /// `overrides` replace the values of named <parameter>s (from the command line); naming a
 /// parameter the file does not define is an error.
 using ParameterOverrides = std::map<std::string, double>;
-CrossSection read_detail_file(const std::string& path, const ParameterOverrides& overrides = {});
+/// Circles and arcs become chains of chords that stand off the true curve by at most
+/// `arc_tolerance` × radius (see geometry/arc_points.h).
+CrossSection read_detail_file(const std::string& path, const ParameterOverrides& overrides = {},
+                              double arc_tolerance = default_arc_tolerance);
 
 /// Same, from text already in memory; `file_name` is used in messages.
 CrossSection parse_detail_text(const std::string& text, const std::string& file_name,
-                               const ParameterOverrides& overrides = {});
+                               const ParameterOverrides& overrides = {}, double arc_tolerance = default_arc_tolerance);
 
 }  // namespace edgeflux

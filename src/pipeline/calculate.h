@@ -52,6 +52,10 @@ Calculation calculate_on_mesh(const CrossSection& section, TriMesh mesh, const C
 /// thrown as std::runtime_error with the solver's message.
 Calculation calculate(const CrossSection& section, const CalculationOptions& options);
 
+/// The chord tolerance for circles and arcs (relative to the radius) that suits an accuracy target:
+/// a tenth of the relative accuracy asked of L2D, so faceting stays well inside the target.
+inline double arc_tolerance_for(const AccuracyTarget& target) { return 0.1 * target.coupling_relative; }
+
 /// Conductivity per triangle from the material of each triangle.
 std::vector<double> triangle_conductivities(const CrossSection& section, const TriMesh& mesh);
 

@@ -78,7 +78,7 @@ void parallel_for(int n, int jobs, const std::function<void(int)>& task, const s
 VariantSummary run_one(const std::string& label, const std::string& file, const ParameterOverrides& overrides,
                        const CalculationOptions& options) {
   try {
-    const CrossSection section = read_detail_file(file, overrides);
+    const CrossSection section = read_detail_file(file, overrides, arc_tolerance_for(options.target));
     CalculationOptions quiet = options;
     quiet.progress = nullptr;
     VariantSummary v = summarise(label, file, section, calculate(section, quiet));
