@@ -172,10 +172,20 @@ struct Pieces {
 };
 
 Pieces snapped_pieces(const DrawnGeometry& g) {
+  // An edge shared by two regions is rounded once (snap rounding is the costly step).
   std::vector<std::array<Point, 2>> segments;
-  segments.reserve(g.edges.size());
-  for (const auto& e : g.edges) segments.push_back({g.corners[e[0]], g.corners[e[1]]});
-  const std::vector<std::vector<GridPoint>> polylines = snap_rounded(segments, g.marks);
+  std::vector<int> segment_of_edge(g.edges.size());
+  {
+    std::unordered_map<long long, int> seen;
+    for (std::size_t e = 0; e < g.edges.size(); ++e) {
+      const int a = std::min(g.edges[e][0], g.edges[e][1]), b = std::max(g.edges[e][0], g.edges[e][1]);
+      const auto [it, added] = seen.try_emplace((static_cast<long long>(a) << 32) | static_cast<unsigned>(b),
+                                                static_cast<int>(segments.size()));
+      if (added) segments.push_back({g.corners[a], g.corners[b]});
+      segment_of_edge[e] = it->second;
+    }
+  }
+  const std::vector<std::vector<GridPoint>> rounded_segments = snap_rounded(segments, g.marks);
   Pieces pieces;
   std::unordered_map<GridPoint, int, GridHash> point_of;
   std::unordered_map<long long, int> piece_of;
@@ -184,8 +194,8 @@ Pieces snapped_pieces(const DrawnGeometry& g) {
     if (added) pieces.points.push_back(p);
     return it->second;
   };
-  for (std::size_t e = 0; e < polylines.size(); ++e) {
-    const auto& line = polylines[e];
+  for (std::size_t e = 0; e < g.edges.size(); ++e) {
+    const auto& line = rounded_segments[segment_of_edge[e]];
     for (std::size_t k = 0; k + 1 < line.size(); ++k) {
       const int a = point_index(line[k]), b = point_index(line[k + 1]);
       const long long key = (static_cast<long long>(std::min(a, b)) << 32) | static_cast<unsigned>(std::max(a, b));

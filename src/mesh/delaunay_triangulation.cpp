@@ -19,6 +19,9 @@
 #include <CGAL/Delaunay_mesh_vertex_base_2.h>
 #include <CGAL/Delaunay_mesher_2.h>
 #include <CGAL/Exact_predicates_inexact_constructions_kernel.h>
+#include <CGAL/Spatial_sort_traits_adapter_2.h>
+#include <CGAL/property_map.h>
+#include <CGAL/spatial_sort.h>
 #include <CGAL/Triangulation_face_base_with_info_2.h>
 #include <CGAL/Triangulation_vertex_base_with_info_2.h>
 
@@ -107,8 +110,14 @@ void paint_from_seeds(const PlanarSubdivision& sub, Cdt& cdt) {
   for (auto f = cdt.all_faces_begin(); f != cdt.all_faces_end(); ++f) f->info() = -1;
   std::vector<Cdt::Face_handle> todo;
   Cdt::Face_handle hint;
-  for (const FaceSeed& seed : sub.seeds) {
-    const Cdt::Face_handle start = cdt.locate(cgal_point(seed.at), hint);
+  // Seeds in space-filling-curve order: each is located by a short walk from the one before.
+  std::vector<std::pair<CgalPoint, int>> ordered;
+  for (std::size_t k = 0; k < sub.seeds.size(); ++k) ordered.emplace_back(cgal_point(sub.seeds[k].at), static_cast<int>(k));
+  CGAL::spatial_sort(ordered.begin(), ordered.end(),
+                     CGAL::Spatial_sort_traits_adapter_2<MeshKernel, CGAL::First_of_pair_property_map<std::pair<CgalPoint, int>>>());
+  for (const auto& [point, k] : ordered) {
+    const FaceSeed& seed = sub.seeds[k];
+    const Cdt::Face_handle start = cdt.locate(point, hint);
     hint = start;
     if (cdt.is_infinite(start)) throw std::logic_error("a face seed of the section lies outside its triangulation");
     if (start->info() == seed.region) continue;
@@ -130,10 +139,19 @@ void paint_from_seeds(const PlanarSubdivision& sub, Cdt& cdt) {
 
 /// Triangles of the constraints-only triangulation that some region paints: the domain for the
 /// node estimate (cheap: that triangulation has few faces).
-std::vector<std::array<Point, 3>> painted_domain(const Cdt& cdt) {
-  std::vector<std::array<Point, 3>> domain;
-  for (auto f = cdt.finite_faces_begin(); f != cdt.finite_faces_end(); ++f)
-    if (f->info() >= 0) domain.push_back({plain(f->vertex(0)->point()), plain(f->vertex(1)->point()), plain(f->vertex(2)->point())});
+std::vector<DomainTriangle> painted_domain(const Cdt& cdt) {
+  std::vector<DomainTriangle> domain;
+  for (auto f = cdt.finite_faces_begin(); f != cdt.finite_faces_end(); ++f) {
+    if (f->info() < 0) continue;
+    const Point p[3] = {plain(f->vertex(0)->point()), plain(f->vertex(1)->point()), plain(f->vertex(2)->point())};
+    double longest = 0.0, longest_constrained = 0.0;
+    for (int k = 0; k < 3; ++k) {  // side k faces vertex k
+      const double length = distance(p[(k + 1) % 3], p[(k + 2) % 3]);
+      longest = std::max(longest, length);
+      if (f->is_constrained(k)) longest_constrained = std::max(longest_constrained, length);
+    }
+    domain.push_back({p[0], p[1], p[2], longest_constrained >= 0.75 * longest});
+  }
   return domain;
 }
 
@@ -147,11 +165,14 @@ double point_segment_distance(Point p, Point a, Point b) {
 /// Local target element size at every vertex of the subdivision, from the distance to the nearest
 /// feature it does not touch (the neighbouring vertices and the constrained edges facing it in the
 /// constraints-only triangulation, in which a feature hidden behind another is never the
-/// nearest). Thin layers and short edges get small elements; re-entrant corners, where the heat
-/// flux is singular (θ − θc ∝ r^(2/3)), start several times finer.
+/// nearest). Thin layers and short edges get small elements; re-entrant corners (above 200°), where
+/// the heat flux is singular (θ − θc ∝ r^(2/3) at 270°), start several times finer.
 std::vector<SizeSeed> feature_sizes(const Cdt& cdt, double density) {
   const double elements_across = 3.0 * density;
   const double reflex_factor = 10.0;
+  // Near a corner of angle α the field goes as r^(π/α): at 200° the exponent is 0.9, and a
+  // finely drawn curve, whose corners are all within a few degrees of 180°, has no singularity.
+  const double reflex_angle = 200.0 * degree;
   std::vector<SizeSeed> seeds;
   for (auto v = cdt.finite_vertices_begin(); v != cdt.finite_vertices_end(); ++v) {
     const Point p = plain(v->point());
@@ -180,7 +201,7 @@ std::vector<SizeSeed> feature_sizes(const Cdt& cdt, double density) {
         const auto& [region, angle] = fan[(start + k) % n];
         if (k > 0 && region != fan[(start + k - 1) % n].first) run = 0.0;
         run += angle;
-        if (region >= 0 && run > 3.141592653589793 + 1e-9) reflex = true;
+        if (region >= 0 && run > reflex_angle) reflex = true;
       }
     }
     if (std::isfinite(nearest)) seeds.push_back({p, nearest / (elements_across * (reflex ? reflex_factor : 1.0))});
@@ -271,13 +292,15 @@ std::string smallest_angle_text(const CrossSection& section, const PlanarSubdivi
 
 /// Runs Delaunay refinement step by step so a pathological input stops at its budget with a clear
 /// message instead of running for minutes or out of memory.
+/// The domain is the painted faces (face info ≥ 0), marked here rather than found by CGAL from
+/// seed points: CGAL locates each seed from scratch, which on a long section (a wall of thousands
+/// of bricks) walks across the whole triangulation for every one.
 template <class Criteria>
-void refine_guarded(const CrossSection& section, const PlanarSubdivision& sub, Cdt& cdt,
-                    const std::vector<CgalPoint>& seeds, const Criteria& criteria, const SharpAngles& sharp,
-                    const RefinementBudget& limits) {
+void refine_guarded(const CrossSection& section, const PlanarSubdivision& sub, Cdt& cdt, const Criteria& criteria,
+                    const SharpAngles& sharp, const RefinementBudget& limits) {
+  for (auto f = cdt.all_faces_begin(); f != cdt.all_faces_end(); ++f) f->set_in_domain(!cdt.is_infinite(f) && f->info() >= 0);
   CGAL::Delaunay_mesher_2<Cdt, Criteria> mesher(cdt, criteria);
-  mesher.set_seeds(seeds.begin(), seeds.end(), true);
-  mesher.init();
+  mesher.init(true);
   while (mesher.step_by_step_refine_mesh()) {
     if (cdt.number_of_vertices() <= limits.budget) continue;
     if (limits.budget >= limits.max_vertices)
@@ -391,16 +414,21 @@ RawTriangulation painted_triangulation(const PlanarSubdivision& sub, Cdt& cdt,
 
 RawTriangulation graded_triangulation(const CrossSection& section, const PlanarSubdivision& sub, const MeshOptions& options) {
   Cdt cdt;
-  std::vector<Cdt::Vertex_handle> vertex;
-  vertex.reserve(sub.vertices.size());
-  for (GridPoint p : sub.vertices) vertex.push_back(cdt.insert(cgal_point(p)));
+  // All vertices at once (CGAL sorts them along a space-filling curve); the info is the vertex's
+  // index until the output numbering replaces it.
+  std::vector<std::pair<CgalPoint, int>> with_index;
+  for (std::size_t v = 0; v < sub.vertices.size(); ++v) with_index.emplace_back(cgal_point(sub.vertices[v]), static_cast<int>(v));
+  cdt.insert(with_index.begin(), with_index.end());
+  std::vector<Cdt::Vertex_handle> vertex(sub.vertices.size());
+  for (auto v = cdt.finite_vertices_begin(); v != cdt.finite_vertices_end(); ++v) vertex[v->info()] = v;
   for (const SubdivisionEdge& e : sub.edges) cdt.insert_constraint(vertex[e.a], vertex[e.b]);
   paint_from_seeds(sub, cdt);
-  const std::vector<std::array<Point, 3>> domain = painted_domain(cdt);
+  const std::vector<DomainTriangle> domain = painted_domain(cdt);
   const std::vector<SizeSeed> size_seeds = feature_sizes(cdt, options.density);
   // Probes become vertices so their temperature is a nodal value, free of interpolation error.
   std::vector<Cdt::Vertex_handle> probes;
   for (GridPoint p : sub.probes) probes.push_back(cdt.insert(cgal_point(p)));
+  if (!probes.empty()) paint_from_seeds(sub, cdt);  // the faces the probes split
 
   double x_min = 1e300, y_min = 1e300, x_max = -1e300, y_max = -1e300;
   for (GridPoint p : sub.vertices) {
@@ -408,7 +436,7 @@ RawTriangulation graded_triangulation(const CrossSection& section, const PlanarS
     y_min = std::min(y_min, static_cast<double>(p.y)), y_max = std::max(y_max, static_cast<double>(p.y));
   }
   const double extent = std::max(x_max - x_min, y_max - y_min);
-  const SizeField field(size_seeds, extent / (50.0 * options.density), 0.3 / std::sqrt(options.density), {x_min, y_min});
+  const SizeField field(size_seeds, extent / (50.0 * options.density), 0.3 / std::sqrt(options.density));
   const SharpAngles sharp = sharp_angles(sub);
   reject_unmeshable_angle(section, sub, sharp);
   // Sharp corners first: they are counted at once, the size field needs a quadrature.
@@ -417,11 +445,9 @@ RawTriangulation graded_triangulation(const CrossSection& section, const PlanarS
   const double size_nodes =
       sharp.wedge_nodes > limit ? 0.0 : given_points + estimated_node_count(domain, field, limit - sharp.wedge_nodes);
   check_node_estimate(section, sub, size_nodes, sharp, extent, size_seeds, options.max_nodes);
-  std::vector<CgalPoint> seeds;
-  for (const FaceSeed& s : sub.seeds) seeds.push_back(cgal_point(s.at));
   // Shape bound 0.125 is a minimum angle of about 20.7°, which the refinement always reaches.
   GradedCriteria criteria(0.125, &field);
-  refine_guarded(section, sub, cdt, seeds, criteria, sharp, make_budget(size_nodes + sharp.wedge_nodes, options.max_nodes));
+  refine_guarded(section, sub, cdt, criteria, sharp, make_budget(size_nodes + sharp.wedge_nodes, options.max_nodes));
   RawTriangulation raw = painted_triangulation(sub, cdt, vertex);
   for (const Cdt::Vertex_handle& v : probes) raw.probe_nodes.push_back(v->info());
   return raw;

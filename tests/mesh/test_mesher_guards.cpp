@@ -3,7 +3,10 @@
 // estimate behind the refinement budget is the integral it claims to be.
 #include <doctest/doctest.h>
 
+#include <algorithm>
 #include <cmath>
+#include <random>
+#include <vector>
 #include <string>
 
 #include "../test_support.h"
@@ -116,15 +119,35 @@ TEST_CASE("a taper of 1 in 1000 (0.057°) meshes; a tip of 0.01° is refused bef
 TEST_CASE("node estimate: the integral of 2/(√3 (0.6 h)²) over the domain, with thin triangles at their thickness (exact algebra)") {
   const double per_unit_area = 2.0 / (std::sqrt(3.0) * 0.36);
   // Uniform size field (no seeds): h = 0.05 everywhere on the unit square.
-  const SizeField uniform({}, 0.05, 0.3, {0.0, 0.0});
-  const std::vector<std::array<Point, 3>> square = {{Point{0, 0}, Point{1, 0}, Point{1, 1}}, {Point{0, 0}, Point{1, 1}, Point{0, 1}}};
+  const SizeField uniform({}, 0.05, 0.3);
+  const std::vector<DomainTriangle> square = {{Point{0, 0}, Point{1, 0}, Point{1, 1}}, {Point{0, 0}, Point{1, 1}, Point{0, 1}}};
   CHECK(estimated_node_count(square, uniform, 1e9) == doctest::Approx(per_unit_area / (0.05 * 0.05)).epsilon(1e-12));
   // A 1 × 0.001 strip: each of its two triangles is 2·area/longest = 0.001/√(1 + 10⁻⁶) thick, and
   // filled with elements 1.25 times that.
-  const std::vector<std::array<Point, 3>> strip = {{Point{0, 0}, Point{1, 0}, Point{1, 0.001}}, {Point{0, 0}, Point{1, 0.001}, Point{0, 0.001}}};
+  const std::vector<DomainTriangle> strip = {{Point{0, 0}, Point{1, 0}, Point{1, 0.001}}, {Point{0, 0}, Point{1, 0.001}, Point{0, 0.001}}};
   const double h = 1.25 * 0.001 / std::sqrt(1.0 + 1e-6);
   CHECK(estimated_node_count(strip, uniform, 1e9) == doctest::Approx(per_unit_area * 0.001 / (h * h)).epsilon(1e-9));
   // Counting stops once past the given bound.
   CHECK(estimated_node_count(strip, uniform, 100.0) > 100.0);
   CHECK(estimated_node_count(strip, uniform, 100.0) < per_unit_area * 0.001 / (h * h));
+  // The same thin triangles drawn between points of one curve (no constrained side along them)
+  // are filled at the size field's 0.05.
+  const std::vector<DomainTriangle> fan = {{Point{0, 0}, Point{1, 0}, Point{1, 0.001}, false},
+                                           {Point{0, 0}, Point{1, 0.001}, Point{0, 0.001}, false}};
+  CHECK(estimated_node_count(fan, uniform, 1e9) == doctest::Approx(per_unit_area * 0.001 / (0.05 * 0.05)).epsilon(1e-9));
+}
+
+TEST_CASE("size field: the k-d tree search equals the minimum over all seeds (exact algebra)") {
+  std::mt19937 random(7);
+  std::uniform_real_distribution<double> where(0.0, 100.0), size(0.01, 5.0);
+  std::vector<SizeSeed> seeds;
+  for (int i = 0; i < 3000; ++i) seeds.push_back({{where(random), where(random)}, size(random)});
+  const SizeField field(seeds, 4.0, 0.3);
+  for (int q = 0; q < 2000; ++q) {
+    const double x = where(random) * 1.2 - 10.0, y = where(random) * 1.2 - 10.0;
+    double brute = 4.0;
+    for (const SizeSeed& s : seeds)
+      brute = std::min(brute, s.size + 0.3 * std::sqrt((x - s.at.x) * (x - s.at.x) + (y - s.at.y) * (y - s.at.y)));
+    CHECK(field(x, y) == brute);
+  }
 }
