@@ -160,12 +160,19 @@ void check_separate_parts(const CrossSection& section, PlanarSubdivision& sub, c
     }
   std::vector<char> has_surface(painted.n_faces(), 0), is_part(painted.n_faces(), 0);
   std::vector<Point> corner(painted.n_faces());
+  // Per part, the coldest and warmest environment its surfaces face: heat flows through a part
+  // only when they differ.
+  std::vector<double> coldest(painted.n_faces(), 1e300), warmest(painted.n_faces(), -1e300);
   for (std::size_t e = 0; e < sub.edges.size(); ++e)
     for (int side = 0; side < 2; ++side) {
       const int t = edge_triangles[e][side];
       if (t < 0 || painted.owner[painted.face[t]] < 0) continue;
       const int part = parts.find(painted.face[t]);
-      if (sub.edges[e].surface >= 0) has_surface[part] = 1;
+      if (const int s = sub.edges[e].surface; s >= 0) {
+        has_surface[part] = 1;
+        const double theta = section.environments[section.surfaces[s].environment].temperature;
+        coldest[part] = std::min(coldest[part], theta), warmest[part] = std::max(warmest[part], theta);
+      }
       if (!is_part[part]) is_part[part] = 1, corner[part] = as_point(sub.vertices[sub.edges[e].a]);
     }
   int n_parts = 0;
@@ -182,6 +189,14 @@ void check_separate_parts(const CrossSection& section, PlanarSubdivision& sub, c
                                   section.format_point(sub.metres(corner[f]))),
                       "join the part to the rest of the section along an edge, give it a surface, or remove it");
   }
+  bool heat_flows = false;
+  for (int f = 0; f < painted.n_faces(); ++f) heat_flows = heat_flows || (is_part[f] && warmest[f] > coldest[f]);
+  if (!heat_flows)
+    throw_input_error({section.file, 0}, "section",
+                      fmt::format("the section falls into {} separate parts and none of them joins surfaces facing "
+                                  "environments at different temperatures, so no heat flows through it", n_parts),
+                      "close the gap between the regions that should touch (regions within 0.01 mm of each other are "
+                      "joined)");
   if (n_parts > 1)
     sub.warnings.push_back(fmt::format("the section falls into {} separate parts that touch nowhere; each is solved on its "
                                        "own and the heat flows add up. Check for an unintended gap between regions",

@@ -27,8 +27,9 @@ void check_region_visibility(const CrossSection& section, PlanarSubdivision& sub
                              const std::vector<char>& owns_area, const std::vector<char>& is_member);
 
 /// Throws InputError for a part of the section (regions joined along edges) that no surface
-/// touches: its temperature would be undefined. Warns when the section falls into several parts
-/// that each touch a surface. `edge_triangles` gives, per subdivision edge, the triangle on its
+/// touches: its temperature would be undefined; and when no part joins environments at different
+/// temperatures: no heat flows. Warns when the section falls into several parts that each touch a
+/// surface. `edge_triangles` gives, per subdivision edge, the triangle on its
 /// left and on its right (-1 beyond the hull).
 void check_separate_parts(const CrossSection& section, PlanarSubdivision& subdivision,
                           const PaintedTriangulation& painted, const std::vector<std::array<int, 2>>& edge_triangles);
