@@ -8,6 +8,8 @@
 #include <limits>
 #include <unordered_map>
 
+#include "geometry/polygon.h"
+
 namespace edgeflux {
 namespace {
 
@@ -16,20 +18,6 @@ namespace {
 // them stay within 1.5 steps of a line the drawing had them on.
 constexpr double path_tolerance = 2.0;
 
-struct GridHash {
-  std::size_t operator()(const GridPoint& p) const {
-    return std::hash<std::int64_t>()(p.x * 0x9E3779B97F4A7C15LL ^ (p.y + 0x632BE59BD9B4E019LL));
-  }
-};
-
-Point as_point(GridPoint g) { return {static_cast<double>(g.x), static_cast<double>(g.y)}; }
-
-double point_segment_distance(Point p, Point a, Point b) {
-  const Point d = b - a;
-  const double len2 = dot(d, d);
-  const double t = len2 > 0.0 ? std::clamp(dot(p - a, d) / len2, 0.0, 1.0) : 0.0;
-  return distance(p, a + t * d);
-}
 
 bool is_boundary(const SubdivisionEdge& e) { return (e.left < 0) != (e.right < 0); }
 
@@ -51,8 +39,7 @@ class Outline {
     for (const SubdivisionEdge& e : sub_.edges) {
       if (!is_boundary(e)) continue;
       const Point a = as_point(sub_.vertices[e.a]), b = as_point(sub_.vertices[e.b]);
-      const Point ab = b - a;
-      const Point foot = a + std::clamp(dot(as_point(p) - a, ab) / dot(ab, ab), 0.0, 1.0) * ab;
+      const Point foot = nearest_on_segment(as_point(p), a, b);
       const double d = distance(as_point(p), foot);
       if (d < nearest) nearest = d, nearest_at = foot;
     }
@@ -79,7 +66,7 @@ class Outline {
       for (int e : at_vertex_[u]) {
         const int w = sub_.edges[e].a == u ? sub_.edges[e].b : sub_.edges[e].a;
         if (!(along(w) > along(u)) || along(w) > 1.0 + 1e-9) continue;
-        const double deviation = point_segment_distance(as_point(sub_.vertices[w]), a, b);
+        const double deviation = distance_to_segment(as_point(sub_.vertices[w]), a, b);
         if (deviation <= path_tolerance && deviation < best_deviation) best_deviation = deviation, best = e;
         if (deviation < miss_deviation) miss_deviation = deviation, nearest_miss = w;
       }
@@ -114,7 +101,7 @@ class Outline {
  private:
   const CrossSection& section_;
   PlanarSubdivision& sub_;
-  std::unordered_map<GridPoint, int, GridHash> vertex_of_;
+  std::unordered_map<GridPoint, int, GridPointHash> vertex_of_;
   std::vector<std::vector<int>> at_vertex_;
 };
 

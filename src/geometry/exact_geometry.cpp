@@ -16,6 +16,8 @@
 #include <stdexcept>
 #include <unordered_map>
 
+#include "geometry/polygon.h"
+
 namespace edgeflux {
 namespace {
 
@@ -35,13 +37,6 @@ std::vector<CgalBox> cgal_boxes(const std::vector<Box>& boxes) {
 
 // ---- snap rounding ------------------------------------------------------------------------------
 
-double point_segment_distance(Point p, Point a, Point b) {
-  const Point d = b - a, w = p - a;
-  const double len2 = dot(d, d);
-  const double t = len2 > 0.0 ? std::clamp(dot(w, d) / len2, 0.0, 1.0) : 0.0;
-  return distance(p, a + t * d);
-}
-
 /// Sign of the turn a → b → c. Exact for grid coordinates below about 6·10⁷ steps (600 m), where
 /// every product is an integer below 2⁵³; beyond, only the generous margins below rely on it.
 int turn(Point a, Point b, Point c) {
@@ -52,15 +47,9 @@ int turn(Point a, Point b, Point c) {
 double segment_distance(Point a, Point b, Point c, Point d) {
   const int o1 = turn(a, b, c), o2 = turn(a, b, d), o3 = turn(c, d, a), o4 = turn(c, d, b);
   if (o1 * o2 < 0 && o3 * o4 < 0) return 0.0;  // proper crossing
-  return std::min({point_segment_distance(c, a, b), point_segment_distance(d, a, b), point_segment_distance(a, c, d),
-                   point_segment_distance(b, c, d)});
+  return std::min({distance_to_segment(c, a, b), distance_to_segment(d, a, b), distance_to_segment(a, c, d),
+                   distance_to_segment(b, c, d)});
 }
-
-struct GridPointHash {
-  std::size_t operator()(const GridPoint& p) const {
-    return std::hash<std::int64_t>()(p.x * 0x9E3779B97F4A7C15LL ^ (p.y + 0x632BE59BD9B4E019LL));
-  }
-};
 
 using SrKernel = CGAL::Exact_predicates_exact_constructions_kernel;
 using SrTraits = CGAL::Snap_rounding_traits_2<SrKernel>;
@@ -161,7 +150,7 @@ std::vector<std::vector<GridPoint>> snap_rounded(const std::vector<std::array<Po
   for (const auto& [i, k] : near_points) {
     const auto& s = segments[i];
     if (involved[i] == 2 || same(points[k], s[0]) || same(points[k], s[1])) continue;
-    if (point_segment_distance(points[k], s[0], s[1]) <= 1.0) involved[i] = 1;
+    if (distance_to_segment(points[k], s[0], s[1]) <= 1.0) involved[i] = 1;
   }
   std::vector<std::array<Point, 2>> hard;
   std::vector<std::size_t> hard_index;
@@ -169,7 +158,7 @@ std::vector<std::vector<GridPoint>> snap_rounded(const std::vector<std::array<Po
     if (involved[i] == 1) hard.push_back(segments[i]), hard_index.push_back(i);
   std::vector<char> is_hot(points.size(), 0);
   for (const auto& [i, k] : near_points)
-    if (involved[i] == 1 && point_segment_distance(points[k], segments[i][0], segments[i][1]) <= reach) is_hot[k] = 1;
+    if (involved[i] == 1 && distance_to_segment(points[k], segments[i][0], segments[i][1]) <= reach) is_hot[k] = 1;
   std::vector<Point> hot;
   for (std::size_t k = 0; k < points.size(); ++k)
     if (is_hot[k]) hot.push_back(points[k]);

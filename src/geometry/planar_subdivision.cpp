@@ -14,6 +14,7 @@
 #include "geometry/boundary_paths.h"
 #include "geometry/exact_geometry.h"
 #include "geometry/painted_triangulation.h"
+#include "geometry/polygon.h"
 #include "geometry/section_topology.h"
 
 namespace edgeflux {
@@ -22,11 +23,6 @@ namespace {
 struct PointHash {
   std::size_t operator()(const std::pair<double, double>& p) const {
     return std::hash<double>()(p.first) * 31 + std::hash<double>()(p.second);
-  }
-};
-struct GridHash {
-  std::size_t operator()(const GridPoint& p) const {
-    return std::hash<std::int64_t>()(p.x * 0x9E3779B97F4A7C15LL ^ (p.y + 0x632BE59BD9B4E019LL));
   }
 };
 
@@ -49,15 +45,6 @@ Frame frame_of(const CrossSection& section) {
   for (const FlankingElement& f : section.flanking_elements) take(f.cut_off_start), take(f.cut_off_end);
   return {{static_cast<std::int64_t>(std::floor(x * grid_steps_per_metre)) - 1,
            static_cast<std::int64_t>(std::floor(y * grid_steps_per_metre)) - 1}};
-}
-
-double point_segment_distance(Point p, Point a, Point b, Point* foot = nullptr) {
-  const Point d = b - a;
-  const double len2 = dot(d, d);
-  const double t = len2 > 0.0 ? std::clamp(dot(p - a, d) / len2, 0.0, 1.0) : 0.0;
-  const Point f = a + t * d;
-  if (foot) *foot = f;
-  return distance(p, f);
 }
 
 /// The section's points in local grid steps before rounding: region corners (each position once)
@@ -128,8 +115,8 @@ std::optional<std::string> snap_points_onto_edges(const CrossSection& section, c
     const auto& edge = g.edges[e];
     if (edge[0] == c || edge[1] == c) continue;
     const Point p = g.corners[c], a = g.corners[edge[0]], b = g.corners[edge[1]];
-    Point foot;
-    const double d = point_segment_distance(p, a, b, &foot);
+    const Point foot = nearest_on_segment(p, a, b);
+    const double d = distance(p, foot);
     if (d == 0.0 || d > step || distance(p, a) <= step || distance(p, b) <= step || d >= best[c]) continue;
     best[c] = d, target[c] = foot;
   }
@@ -144,8 +131,8 @@ std::optional<std::string> snap_points_onto_edges(const CrossSection& section, c
     if (d <= step && d < to_corner[m]) to_corner[m] = d, corner_target[m] = g.corners[c];
   }
   for (const auto& [m, e] : overlapping_boxes(mark_boxes, edge_boxes)) {
-    Point foot;
-    const double d = point_segment_distance(g.marks[m], g.corners[g.edges[e][0]], g.corners[g.edges[e][1]], &foot);
+    const Point foot = nearest_on_segment(g.marks[m], g.corners[g.edges[e][0]], g.corners[g.edges[e][1]]);
+    const double d = distance(g.marks[m], foot);
     if (d <= step && d < to_edge[m]) to_edge[m] = d, edge_target[m] = foot;
   }
   for (std::size_t m = 0; m < g.marks.size(); ++m) {
@@ -187,7 +174,7 @@ Pieces snapped_pieces(const DrawnGeometry& g) {
   }
   const std::vector<std::vector<GridPoint>> rounded_segments = snap_rounded(segments, g.marks);
   Pieces pieces;
-  std::unordered_map<GridPoint, int, GridHash> point_of;
+  std::unordered_map<GridPoint, int, GridPointHash> point_of;
   std::unordered_map<long long, int> piece_of;
   auto point_index = [&](GridPoint p) {
     const auto [it, added] = point_of.try_emplace(p, static_cast<int>(pieces.points.size()));
@@ -296,8 +283,6 @@ PaintedTriangulation painted_triangulation(Pieces pieces, const std::vector<Poin
 
 double twice_area(Point a, Point b, Point c) { return cross(b - a, c - a); }
 
-Point as_point(GridPoint g) { return {static_cast<double>(g.x), static_cast<double>(g.y)}; }
-
 }  // namespace
 
 PlanarSubdivision planar_subdivision(const CrossSection& section) {
@@ -370,7 +355,7 @@ PlanarSubdivision planar_subdivision(const CrossSection& section) {
   for (int t = 0; t < static_cast<int>(tri.triangles.size()); ++t)
     if (painted.owner[painted.face[t]] >= 0)
       for (int v : tri.triangles[t]) painted_vertex[v] = 1;
-  std::unordered_map<GridPoint, int, GridHash> point_of;
+  std::unordered_map<GridPoint, int, GridPointHash> point_of;
   for (int v = 0; v < static_cast<int>(painted.points.size()); ++v) point_of.emplace(painted.points[v], v);
   for (std::size_t k = 0; k < section.probes.size(); ++k) {
     const Probe& probe = section.probes[k];

@@ -28,13 +28,14 @@ bool contains(std::span<const Point> outline, Point p) {
   return inside;
 }
 
-double distance_to_segment(Point p, Point a, Point b) {
+Point nearest_on_segment(Point p, Point a, Point b) {
   const Point ab = b - a;
   const double length_sq = dot(ab, ab);
-  if (length_sq == 0.0) return distance(p, a);
-  const double t = std::clamp(dot(p - a, ab) / length_sq, 0.0, 1.0);
-  return distance(p, a + t * ab);
+  if (length_sq == 0.0) return a;
+  return a + std::clamp(dot(p - a, ab) / length_sq, 0.0, 1.0) * ab;
 }
+
+double distance_to_segment(Point p, Point a, Point b) { return distance(p, nearest_on_segment(p, a, b)); }
 
 namespace {
 int orientation(Point a, Point b, Point c) {

@@ -18,6 +18,9 @@ bool contains(std::span<const Point> outline, Point p);
 /// Distance from p to the segment ab, m.
 double distance_to_segment(Point p, Point a, Point b);
 
+/// The point of the segment ab nearest to p.
+Point nearest_on_segment(Point p, Point a, Point b);
+
 /// True when the closed segments ab and cd share a point.
 bool segments_intersect(Point a, Point b, Point c, Point d);
 

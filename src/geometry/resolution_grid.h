@@ -3,6 +3,7 @@
 
 #include <compare>
 #include <cstdint>
+#include <functional>
 
 #include "core/point.h"
 
@@ -18,6 +19,15 @@ inline constexpr double grid_step = 1.0 / grid_steps_per_metre;
 struct GridPoint {
   std::int64_t x = 0, y = 0;
   auto operator<=>(const GridPoint&) const = default;
+};
+
+/// A grid point as a plain point, in grid steps.
+inline Point as_point(GridPoint p) { return {static_cast<double>(p.x), static_cast<double>(p.y)}; }
+
+struct GridPointHash {
+  std::size_t operator()(const GridPoint& p) const {
+    return std::hash<std::int64_t>()(p.x * 0x9E3779B97F4A7C15LL ^ (p.y + 0x632BE59BD9B4E019LL));
+  }
 };
 
 /// Metres of a grid coordinate (correctly rounded: a grid point written in the file keeps its value).

@@ -12,8 +12,6 @@
 namespace edgeflux {
 namespace {
 
-Point as_point(GridPoint g) { return {static_cast<double>(g.x), static_cast<double>(g.y)}; }
-
 std::string region_name(const CrossSection& section, int r) { return fmt::format("'{}'", section.regions[r].name); }
 
 /// Union–find over integers.

@@ -34,6 +34,7 @@
 #include <tuple>
 
 #include "geometry/planar_subdivision.h"
+#include "geometry/polygon.h"
 #include "mesh/mesh_cross_section.h"
 #include "mesh/raw_triangulation.h"
 #include "mesh/size_field.h"
@@ -155,13 +156,6 @@ std::vector<DomainTriangle> painted_domain(const Cdt& cdt) {
   return domain;
 }
 
-double point_segment_distance(Point p, Point a, Point b) {
-  const Point d = b - a;
-  const double len2 = dot(d, d);
-  const double t = len2 > 0.0 ? std::clamp(dot(p - a, d) / len2, 0.0, 1.0) : 0.0;
-  return distance(p, a + t * d);
-}
-
 /// Local target element size at every vertex of the subdivision, from the distance to the nearest
 /// feature it does not touch (the neighbouring vertices and the constrained edges facing it in the
 /// constraints-only triangulation, in which a feature hidden behind another is never the
@@ -189,7 +183,7 @@ std::vector<SizeSeed> feature_sizes(const Cdt& cdt, double density) {
       const int i = f->index(v);
       const Point q = plain(f->vertex(Cdt::ccw(i))->point()), r = plain(f->vertex(Cdt::cw(i))->point());
       nearest = std::min({nearest, distance(p, q), distance(p, r)});
-      if (f->is_constrained(i)) nearest = std::min(nearest, point_segment_distance(p, q, r));
+      if (f->is_constrained(i)) nearest = std::min(nearest, distance_to_segment(p, q, r));
       fan.push_back({f->info(), std::atan2(std::abs(cross(q - p, r - p)), dot(q - p, r - p))});
     } while (++f != done);
     const std::size_t n = fan.size();

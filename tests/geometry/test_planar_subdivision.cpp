@@ -123,10 +123,18 @@ TEST_CASE("refused with coordinates: an enclosed uncovered area, parts touching 
 }
 
 TEST_CASE("warned: separate parts that each touch a surface, a narrow slot open to the outside") {
+  // A wall cut in two by a 40 mm joint left out: each half joins both environments.
   const auto parts = planar_subdivision(section_of(
-      "<rectangle material=\"a\" from=\"0,0\" to=\"140,1000\"/><rectangle material=\"b\" from=\"160,0\" to=\"300,1000\"/>",
-      wall_surfaces));
+      "<rectangle material=\"a\" from=\"0,0\" to=\"300,480\"/><rectangle material=\"a\" from=\"0,520\" to=\"300,1000\"/>",
+      "<surface environment=\"in\" resistance=\"0.13\" path=\"0,0 0,480\"/><surface environment=\"in\" resistance=\"0.13\" "
+      "path=\"0,520 0,1000\"/><surface environment=\"out\" resistance=\"0.04\" path=\"300,0 300,480\"/>"
+      "<surface environment=\"out\" resistance=\"0.04\" path=\"300,520 300,1000\"/>"));
   CHECK(has_warning(parts, "the section falls into 2 separate parts"));
+  // Two leaves side by side, each facing one environment only: no heat flows at all.
+  CHECK(error_of(section_of("<rectangle material=\"a\" from=\"0,0\" to=\"140,1000\"/>"
+                            "<rectangle material=\"b\" from=\"160,0\" to=\"300,1000\"/>",
+                            wall_surfaces))
+            .find("none of them joins surfaces facing environments at different temperatures") != std::string::npos);
   // A 1 mm slot 200 mm deep cut into the wall from its top.
   const auto slot = planar_subdivision(section_of(
       "<polygon material=\"a\" points=\"0,0 300,0 300,1000 150.5,1000 150.5,800 149.5,800 149.5,1000 0,1000\"/>",

@@ -148,3 +148,17 @@ TEST_CASE("sloped refinement converges like axis-parallel refinement: the extern
   CHECK(turned.mesh.n_points() <= 2 * straight.mesh.n_points());
   CHECK(turned.convergence.levels.size() <= straight.convergence.levels.size() + 1);
 }
+
+TEST_CASE("the pitched-roof eaves solves at every pitch from 25° to 45° (once 30°, 35° and 40° failed)") {
+  for (double pitch : {25.0, 30.0, 35.0, 40.0, 45.0}) {
+    CAPTURE(pitch);
+    const Calculation calc =
+        calculate(read_detail_file(test::source_path("details/eaves-pitched-roof.xml"), {{"pitch", pitch}}), {});
+    CHECK(calc.convergence.target_met);
+    CHECK(std::abs(calc.heat_loss.field.balance.relative) < 1e-9);  // ISO 10211 asks for 1e-4
+    REQUIRE(calc.junction.temperature_factor);
+    CHECK(*calc.junction.temperature_factor > 0.0);
+    CHECK(*calc.junction.temperature_factor < 1.0);
+    CHECK(calc.junction.warnings.empty());
+  }
+}
