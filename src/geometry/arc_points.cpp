@@ -19,8 +19,13 @@ std::vector<Point> arc_points(Point from, Point to, Point centre, bool counter_c
   }
   // A chord over the angle φ stands off the arc by r(1 − cos(φ/2)).
   const double gap = std::max(tolerance * radius, smallest_gap);
-  const double step = gap >= radius ? pi / 8.0 : std::min(pi / 8.0, 2.0 * std::acos(1.0 - gap / radius));
-  const int pieces = std::max(1, static_cast<int>(std::ceil(std::abs(sweep) / step - 1e-9)));
+  const double widest = gap >= radius ? pi / 8.0 : std::min(pi / 8.0, 2.0 * std::acos(1.0 - gap / radius));
+  // The step is a whole fraction of a turn, and a sweep takes whole steps (up to rounding), so
+  // one arc drawn twice (a hatch over its boundary, two regions sharing a curved edge, in either
+  // direction) gets the same chords.
+  const double turn_pieces = std::ceil(2.0 * pi / widest - 1e-6);
+  const double step = 2.0 * pi / turn_pieces;
+  const int pieces = std::max(1, static_cast<int>(std::ceil(std::abs(sweep) / step - 1e-6)));
   std::vector<Point> points;
   points.reserve(pieces - 1);
   for (int k = 1; k < pieces; ++k) {

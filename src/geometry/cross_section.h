@@ -25,6 +25,9 @@ struct Region {
   std::string name;            ///< user's name, or "region N" (1-based, file order)
   std::size_t material = 0;    ///< index into CrossSection::materials
   std::vector<Point> outline;  ///< m, counter-clockwise, not repeated at the end, ≥ 3 points
+  /// m, inner loops inside the outline (a hatch's islands): crossing one leaves the region, so an
+  /// island is a hole, and an island within it is region again (even-odd rule). Usually empty.
+  std::vector<std::vector<Point>> islands;
   SourceLocation where;
 };
 
@@ -124,6 +127,9 @@ struct CrossSection {
   std::optional<Climate> climate;
   MeshSettings mesh;
   std::vector<std::string> warnings;  ///< found while reading and checking (snapped points, odd sizes)
+  /// m, the points the reader put on circles and arcs to replace them by chords: not drawn by the
+  /// user, so moving one onto a nearby edge is not worth a warning.
+  std::vector<Point> chord_points;
 
   /// "(x, y) mm" in the user's unit, for messages.
   std::string format_point(Point p) const {

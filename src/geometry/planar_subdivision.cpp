@@ -10,6 +10,7 @@
 #include <optional>
 #include <stdexcept>
 #include <unordered_map>
+#include <unordered_set>
 
 #include "geometry/boundary_paths.h"
 #include "geometry/exact_geometry.h"
@@ -38,7 +39,7 @@ Frame frame_of(const CrossSection& section) {
   double x = std::numeric_limits<double>::infinity(), y = x;
   auto take = [&](Point p) { x = std::min(x, p.x), y = std::min(y, p.y); };
   for (const Region& r : section.regions)
-    for (Point p : r.outline) take(p);
+    for (Point p : r.outline) take(p);  // islands lie inside
   for (const Surface& s : section.surfaces)
     for (Point p : s.path) take(p);
   for (const Probe& p : section.probes) take(p.at);
@@ -55,22 +56,29 @@ struct DrawnGeometry {
   std::vector<std::array<int, 2>> edges;  ///< corner indices
   std::vector<int> edge_region;
   std::vector<Point> marks;               ///< path points, then cut-off ends, then probes
+  std::vector<char> is_chord_point;       ///< per corner: put on an arc by the reader
 };
 
 DrawnGeometry drawn_geometry(const CrossSection& section, const Frame& frame) {
   DrawnGeometry g;
   std::unordered_map<std::pair<double, double>, int, PointHash> corner_of;
+  std::unordered_set<std::pair<double, double>, PointHash> chord_points;
+  for (Point p : section.chord_points) chord_points.insert({p.x, p.y});
   for (int r = 0; r < static_cast<int>(section.regions.size()); ++r) {
-    const auto& outline = section.regions[r].outline;
-    std::vector<int> ids;
-    for (Point p : outline) {
-      const auto [it, added] = corner_of.try_emplace({p.x, p.y}, static_cast<int>(g.corners.size()));
-      if (added) g.corners.push_back(frame.local(p));
-      ids.push_back(it->second);
-    }
-    for (std::size_t k = 0; k < ids.size(); ++k) {
-      g.edges.push_back({ids[k], ids[(k + 1) % ids.size()]});
-      g.edge_region.push_back(r);
+    // The outline and any islands: crossing either enters or leaves the region.
+    std::vector<const std::vector<Point>*> loops{&section.regions[r].outline};
+    for (const auto& island : section.regions[r].islands) loops.push_back(&island);
+    for (const auto* loop : loops) {
+      std::vector<int> ids;
+      for (Point p : *loop) {
+        const auto [it, added] = corner_of.try_emplace({p.x, p.y}, static_cast<int>(g.corners.size()));
+        if (added) g.corners.push_back(frame.local(p)), g.is_chord_point.push_back(chord_points.count({p.x, p.y}) > 0);
+        ids.push_back(it->second);
+      }
+      for (std::size_t k = 0; k < ids.size(); ++k) {
+        g.edges.push_back({ids[k], ids[(k + 1) % ids.size()]});
+        g.edge_region.push_back(r);
+      }
     }
   }
   for (const Surface& s : section.surfaces)
@@ -90,7 +98,7 @@ Box box_around(Point a, Point b, double margin) {
 /// sliver or a notch. Every corner within one grid step (0.01 mm) of an edge it does not end on,
 /// and not within a step of that edge's ends, moves onto the edge; every mark (path point, cut-off
 /// end, probe) moves onto the nearest corner within a step, or else onto the nearest edge within a
-/// step. Returns a warning when a point moved by more than rounding noise.
+/// step. Returns a warning when a drawn corner or a mark moved by more than rounding noise.
 std::optional<std::string> snap_points_onto_edges(const CrossSection& section, const PlanarSubdivision& frame,
                                                   DrawnGeometry& g) {
   constexpr double step = 1.0, noise = 0.01;  // grid steps: 0.01 mm and 0.1 µm
@@ -121,7 +129,12 @@ std::optional<std::string> snap_points_onto_edges(const CrossSection& section, c
     best[c] = d, target[c] = foot;
   }
   for (std::size_t c = 0; c < g.corners.size(); ++c)
-    if (std::isfinite(best[c])) record(g.corners[c], target[c]), g.corners[c] = target[c];
+    if (std::isfinite(best[c])) {
+      // Chord points of an arc tangent to a line lie hundredths of a millimetre from it by
+      // construction: moved without a word.
+      if (!g.is_chord_point[c]) record(g.corners[c], target[c]);
+      g.corners[c] = target[c];
+    }
   // Marks: onto a corner, else onto an edge (the moved corners and edges).
   std::vector<double> to_corner(g.marks.size(), std::numeric_limits<double>::infinity()),
       to_edge(g.marks.size(), std::numeric_limits<double>::infinity());

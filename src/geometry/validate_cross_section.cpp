@@ -68,6 +68,17 @@ void check_region(const CrossSection& section, Region& region) {
   if (const auto problem = region_problem(section, region))
     throw_input_error(region.where, region_label(region), problem->what, problem->fix);
   if (signed_area(region.outline) < 0.0) std::reverse(region.outline.begin(), region.outline.end());
+  for (std::size_t k = 0; k < region.islands.size(); ++k) {
+    Region island = region;
+    island.outline = region.islands[k];
+    if (const auto problem = region_problem(section, island))
+      throw_input_error(region.where, region_label(region), fmt::format("its island {} {}", k + 1, problem->what), problem->fix);
+    if (!contains(region.outline, island.outline.front()))
+      throw_input_error(region.where, region_label(region),
+                        fmt::format("its island {} starts at {}, outside the region's outline", k + 1,
+                                    section.format_point(island.outline.front())),
+                        "an island (a hatch's inner loop) must lie inside the outer loop");
+  }
 }
 
 /// What the snapping did to one region, for the message when it folds the region.
@@ -116,13 +127,17 @@ std::vector<SnapRecord> snap_nearly_coincident_points(CrossSection& section, dou
     }
     const Point a = anchors[best];
     if (a.x == p.x && a.y == p.y) return;
-    if (moved++ == 0) first_from = p, first_to = a;
+    // Moves below 0.0001 mm are rounding noise (an arc drawn twice, a drawing's export): not worth a word.
+    if (distance(a, p) > 1e-7 && moved++ == 0) first_from = p, first_to = a;
     if (record && record->moved++ == 0) record->first_from = p, record->first_to = a;
     p = a;
   };
   std::vector<SnapRecord> records(section.regions.size());
-  for (std::size_t r = 0; r < section.regions.size(); ++r)
+  for (std::size_t r = 0; r < section.regions.size(); ++r) {
     for (Point& p : section.regions[r].outline) snap(p, &records[r]);
+    for (auto& island : section.regions[r].islands)
+      for (Point& p : island) snap(p, &records[r]);
+  }
   for (Surface& surface : section.surfaces)
     for (Point& p : surface.path) snap(p, nullptr);
   if (moved > 0)

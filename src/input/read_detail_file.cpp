@@ -3,11 +3,13 @@
 #include "input/read_detail_file.h"
 
 #include <fmt/format.h>
+#include <fmt/ranges.h>
 #include <tinyxml2.h>
 
 #include <algorithm>
 #include <charconv>
 #include <cmath>
+#include <filesystem>
 #include <fstream>
 #include <map>
 #include <set>
@@ -16,6 +18,7 @@
 #include <unordered_map>
 
 #include "geometry/arc_points.h"
+#include "input/read_drawing.h"
 #include "geometry/validate_cross_section.h"
 #include <muParser.h>
 
@@ -121,6 +124,7 @@ class Reader {
   std::string file_;
   ParameterOverrides overrides_;
   double arc_tolerance_;
+  std::map<std::string, Drawing> drawings_;  ///< by path, each read once
   CrossSection section_;
   // muparser keeps pointers to the variables: stable storage, one slot per parameter.
   std::vector<std::unique_ptr<double>> parameter_values_;
@@ -339,7 +343,7 @@ class Reader {
   /// the circular arc about (cx, cy), turning counter-clockwise ("cw(…)": clockwise). In a closed
   /// outline an arc after the last point closes it; a path from a point round to the same point is
   /// a full circle. Arcs come back as chords (arc_points, the reader's chord tolerance).
-  std::vector<Point> parse_outline(const XMLElement* e, const char* attribute, bool closed) const {
+  std::vector<Point> parse_outline(const XMLElement* e, const char* attribute, bool closed) {
     const std::string text = expand(required_text(e, attribute), e, fmt::format("attribute \"{}\"", attribute));
     struct Item {
       std::vector<Point> points;  // the points written before the arc marker
@@ -403,7 +407,8 @@ class Reader {
                                       section_.format_point(centre), r_from / section_.metres_per_unit,
                                       r_to / section_.metres_per_unit, section_.unit),
                           "give the centre and two ends at the same distance from it (within 0.01 mm)");
-      for (Point p : arc_points(from, to, centre, item.counter_clockwise, arc_tolerance_)) points.push_back(p);
+      for (Point p : arc_points(from, to, centre, item.counter_clockwise, arc_tolerance_))
+        points.push_back(p), section_.chord_points.push_back(p);
     }
     return points;
   }
@@ -500,6 +505,9 @@ class Reader {
         if (region.outline.size() > 1 && region.outline.front().x == region.outline.back().x &&
             region.outline.front().y == region.outline.back().y)
           region.outline.pop_back();
+      } else if (kind == "drawing") {
+        read_drawing_regions(e);
+        continue;
       } else if (kind == "circle") {
         allow_attributes(e, {"name", "material", "centre", "radius"});
         const Point centre = parse_point(e, "centre");
@@ -510,17 +518,134 @@ class Reader {
                             "give the radius in the file's unit, larger than 0.01 mm");
         const Point start{centre.x + radius, centre.y};
         region.outline = {start};
-        for (Point p : arc_points(start, start, centre, true, arc_tolerance_)) region.outline.push_back(p);
+        for (Point p : arc_points(start, start, centre, true, arc_tolerance_))
+          region.outline.push_back(p), section_.chord_points.push_back(p);
       } else {
         throw_input_error(where(e), fmt::format("<{}>", kind),
-                          "only <rectangle>, <polygon> and <circle> belong inside <regions>",
-                          "describe the area as a rectangle (from, to), a polygon (points, with arcs if curved) or a "
-                          "circle (centre, radius)");
+                          "only <rectangle>, <polygon>, <circle> and <drawing> belong inside <regions>",
+                          "describe the area as a rectangle (from, to), a polygon (points, with arcs if curved), a "
+                          "circle (centre, radius), or take it from a DXF drawing (<drawing file=\"…\">)");
       }
       region.name = optional_text(e, "name", "");
       if (region.name.empty()) region.name = fmt::format("{} {}", kind, section_.regions.size() + 1);
       section_.regions.push_back(std::move(region));
       material_refs_.push_back({nullptr, required_text(e, "material"), where(e), describe(e)});
+    }
+  }
+
+  /// A DXF file beside the detail file, relative to the detail file's folder.
+  std::string beside_detail_file(const std::string& name) const {
+    const std::filesystem::path path(name);
+    if (path.is_absolute()) return name;
+    return (std::filesystem::path(file_).parent_path() / path).string();
+  }
+
+  const Drawing& drawing_for(const XMLElement* e, const std::string& name) {
+    const std::string path = beside_detail_file(name);
+    auto it = drawings_.find(path);
+    if (it == drawings_.end()) {
+      DrawingOptions options;
+      options.arc_tolerance = arc_tolerance_;
+      if (const char* units = e->Attribute("units")) options.unit = units;
+      Drawing drawing = read_drawing(path, options);
+      if (!drawing.unit_stated)
+        section_.warnings.push_back(fmt::format(
+            "the drawing {} states no unit ($INSUNITS); it was read in millimetres: give units=\"…\" on <drawing> "
+            "(line {}) to be sure", name, e->GetLineNum()));
+      for (const std::string& note : drawing.notes) section_.warnings.push_back(fmt::format("drawing {}: {}", name, note));
+      section_.chord_points.insert(section_.chord_points.end(), drawing.chord_points.begin(), drawing.chord_points.end());
+      it = drawings_.emplace(path, std::move(drawing)).first;
+    }
+    return it->second;
+  }
+
+  /// <drawing file="…" units="…"><layer name="…" material="…" paint-order="…"/>…</drawing>: every
+  /// closed outline on a mapped layer becomes a region, painted in the drawing's entity order
+  /// (layers with a lower paint-order first).
+  void read_drawing_regions(const XMLElement* e) {
+    allow_attributes(e, {"file", "units"});
+    const std::string name = required_text(e, "file");
+    struct Mapping {
+      std::string material;
+      int paint_order;
+      SourceLocation where;
+      std::string object;
+    };
+    std::map<std::string, Mapping> mapping;
+    for (const XMLElement* l = e->FirstChildElement(); l; l = l->NextSiblingElement()) {
+      if (std::string(l->Name()) != "layer")
+        throw_input_error(where(l), fmt::format("<{}>", l->Name()), "only <layer> belongs inside <drawing>",
+                          "map each layer as <layer name=\"LAYER\" material=\"MATERIAL-ID\"/>");
+      allow_attributes(l, {"name", "material", "paint-order"});
+      const std::string layer = required_text(l, "name");
+      const double order = l->Attribute("paint-order") ? required_number(l, "paint-order") : 0.0;
+      if (!mapping.emplace(layer, Mapping{required_text(l, "material"), static_cast<int>(order), where(l), describe(l)}).second)
+        throw_input_error(where(l), describe(l), fmt::format("layer \"{}\" is mapped twice", layer), "map each layer once");
+    }
+    if (mapping.empty())
+      throw_input_error(where(e), describe(e), "maps no layer to a material",
+                        "add <layer name=\"LAYER\" material=\"MATERIAL-ID\"/> for each layer that holds regions "
+                        "('edgeflux import DRAWING' lists the layers)");
+    const Drawing& drawing = drawing_for(e, name);
+    std::set<std::string> present;
+    for (const DrawingLayer& l : drawing.layers) present.insert(l.name);
+    for (const auto& [layer, m] : mapping)
+      if (!present.count(layer)) {
+        std::vector<std::string> names;
+        for (const DrawingLayer& l : drawing.layers)
+          if (l.outlines > 0) names.push_back(l.name);
+        throw_input_error(m.where, m.object, fmt::format("the drawing {} has no layer \"{}\"", name, layer),
+                          fmt::format("use a layer that holds closed outlines: {}",
+                                      names.empty() ? std::string("(none)") : fmt::format("{}", fmt::join(names, ", "))));
+      }
+    for (const std::string& spline : drawing.splines) {
+      const std::string layer = spline.substr(0, spline.find(':'));
+      if (mapping.count(layer))
+        throw_input_error(mapping.at(layer).where, mapping.at(layer).object,
+                          fmt::format("the drawing {} has a spline on this layer ({}), which edgeflux does not read", name, spline),
+                          "convert the spline to a polyline in the CAD program (flatten or explode it to arcs and lines)");
+    }
+    for (const DrawnShape& chain : drawing.chains) {
+      const auto m = mapping.find(chain.layer);
+      if (m == mapping.end()) continue;
+      throw_input_error(m->second.where, m->second.object,
+                        fmt::format("the lines {} on layer \"{}\" of {} do not close into an outline: their ends at {} and "
+                                    "{} are {:.3f} mm apart", chain.entities, chain.layer, name,
+                                    section_.format_point(chain.points.front()), section_.format_point(chain.points.back()),
+                                    distance(chain.points.front(), chain.points.back()) * 1000.0),
+                        "close the outline in the drawing (lines whose ends are within 0.01 mm are joined), or move "
+                        "open lines to a layer that is not mapped");
+    }
+    std::vector<const DrawnShape*> shapes;
+    for (const DrawnShape& s : drawing.outlines)
+      if (mapping.count(s.layer)) shapes.push_back(&s);
+    std::stable_sort(shapes.begin(), shapes.end(), [&](const DrawnShape* a, const DrawnShape* b) {
+      return mapping.at(a->layer).paint_order < mapping.at(b->layer).paint_order;
+    });
+    std::map<std::string, int> unmapped;
+    for (const DrawnShape& s : drawing.outlines)
+      if (!mapping.count(s.layer)) ++unmapped[s.layer];
+    if (!unmapped.empty()) {
+      std::vector<std::string> parts;
+      for (const auto& [layer, count] : unmapped)
+        parts.push_back(fmt::format("\"{}\" ({} outline{})", layer, count, count == 1 ? "" : "s"));
+      section_.warnings.push_back(fmt::format("drawing {}: layers with closed outlines that no <layer> maps were left out: {}",
+                                              name, fmt::join(parts, ", ")));
+    }
+    for (const DrawnShape* s : shapes) {
+      const Mapping& m = mapping.at(s->layer);
+      for (Point p : s->points)
+        if (!(std::abs(p.x) <= max_abs_coordinate_m && std::abs(p.y) <= max_abs_coordinate_m))
+          throw_input_error(m.where, m.object, fmt::format("{} on layer \"{}\" of {} has a point beyond ±{:g} m", s->entities,
+                                                           s->layer, name, max_abs_coordinate_m),
+                            "check the drawing's unit ($INSUNITS or units=\"…\" on <drawing>)");
+      Region region;
+      region.where = m.where;
+      region.name = fmt::format("{} {}", s->layer, s->entities);
+      region.outline = s->points;
+      region.islands = s->islands;
+      section_.regions.push_back(std::move(region));
+      material_refs_.push_back({nullptr, m.material, m.where, m.object});
     }
   }
 
@@ -581,7 +706,7 @@ class Reader {
       surface.where = where(e);
       bool temperature_run_given = false;
       if (kind == "surface") {
-        allow_attributes(e, {"name", "environment", "resistance", "temperature-run-resistance", "kind", "path"});
+        allow_attributes(e, {"name", "environment", "resistance", "temperature-run-resistance", "kind", "path", "drawing-layer"});
         surface.resistance = parse_resistance(e, required_text(e, "resistance"), "resistance");
         if (const char* t = e->Attribute("temperature-run-resistance")) {
           surface.temperature_run_resistance = parse_resistance(e, t, "temperature-run-resistance");
@@ -593,12 +718,16 @@ class Reader {
           throw_input_error(where(e), describe(e), fmt::format("kind \"{}\" is not known", surface_kind),
                             "use kind=\"opaque\" or kind=\"glazing\" (glazing and frames)");
       } else if (kind == "fixed-temperature") {
-        allow_attributes(e, {"name", "environment", "path"});
+        allow_attributes(e, {"name", "environment", "path", "drawing-layer"});
         surface.resistance = 0.0;
       } else {
         throw_input_error(where(e), fmt::format("<{}>", kind),
                           "only <surface> and <fixed-temperature> belong inside <boundaries>",
                           "every boundary edge not named by one of them is adiabatic");
+      }
+      if (const char* layer = e->Attribute("drawing-layer")) {
+        read_drawing_surfaces(e, layer, std::move(surface), temperature_run_given);
+        continue;
       }
       surface.path = parse_outline(e, "path", false);
       if (surface.path.size() < 2)
@@ -609,6 +738,39 @@ class Reader {
       environment_refs_.push_back({nullptr, required_text(e, "environment"), where(e), describe(e)});
       temperature_run_given_.push_back(temperature_run_given);
       section_.surfaces.push_back(std::move(surface));
+    }
+  }
+
+  /// A surface whose path is every open chain of lines on a layer of the detail's drawing (one
+  /// surface per chain, numbered after the first).
+  void read_drawing_surfaces(const XMLElement* e, const std::string& layer, Surface surface, bool temperature_run_given) {
+    if (e->Attribute("path"))
+      throw_input_error(where(e), describe(e), "has both path and drawing-layer", "give the path in one way only");
+    if (drawings_.empty())
+      throw_input_error(where(e), describe(e), fmt::format("takes its path from drawing layer \"{}\", but the file reads no drawing", layer),
+                        "add <drawing file=\"…\"> inside <regions> before using drawing-layer");
+    std::vector<const DrawnShape*> chains;
+    const Drawing* source = nullptr;
+    for (const auto& [path, drawing] : drawings_)
+      for (const DrawnShape& chain : drawing.chains)
+        if (chain.layer == layer) {
+          if (source && source != &drawing)
+            throw_input_error(where(e), describe(e), fmt::format("layer \"{}\" exists in two drawings", layer),
+                              "rename the layer in one of them");
+          source = &drawing, chains.push_back(&chain);
+        }
+    if (chains.empty())
+      throw_input_error(where(e), describe(e), fmt::format("the drawing has no open lines on layer \"{}\"", layer),
+                        "draw the surface as a line or an open polyline along the outline on that layer");
+    const std::string given = optional_text(e, "name", "");
+    const std::string base = given.empty() ? fmt::format("{} {}", layer, section_.surfaces.size() + 1) : given;
+    for (std::size_t k = 0; k < chains.size(); ++k) {
+      Surface part = surface;
+      part.path = chains[k]->points;
+      part.name = k == 0 ? base : fmt::format("{} {}", base, k + 1);
+      environment_refs_.push_back({nullptr, required_text(e, "environment"), where(e), describe(e)});
+      temperature_run_given_.push_back(temperature_run_given);
+      section_.surfaces.push_back(std::move(part));
     }
   }
 

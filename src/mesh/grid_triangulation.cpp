@@ -69,8 +69,11 @@ std::vector<double> graded_axis(const std::vector<double>& lines, double max_siz
 
 /// Index of the last region whose outline contains p (regions paint in file order), or -1.
 int painting_region(const CrossSection& section, Point p) {
-  for (int r = static_cast<int>(section.regions.size()) - 1; r >= 0; --r)
-    if (contains(section.regions[r].outline, p)) return r;
+  for (int r = static_cast<int>(section.regions.size()) - 1; r >= 0; --r) {
+    bool inside = contains(section.regions[r].outline, p);
+    for (const auto& island : section.regions[r].islands) inside = inside != contains(island, p);  // even-odd
+    if (inside) return r;
+  }
   return -1;
 }
 

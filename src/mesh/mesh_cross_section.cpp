@@ -54,9 +54,11 @@ Point centroid(const RawTriangulation& raw, int t) {
 
 bool is_rectilinear(const CrossSection& section) {
   auto axis_parallel = [](Point a, Point b) { return a.x == b.x || a.y == b.y; };
-  for (const Region& region : section.regions)
+  for (const Region& region : section.regions) {
+    if (!region.islands.empty()) return false;
     for (std::size_t i = 0; i < region.outline.size(); ++i)
       if (!axis_parallel(region.outline[i], region.outline[(i + 1) % region.outline.size()])) return false;
+  }
   for (const Surface& surface : section.surfaces)
     for (std::size_t i = 0; i + 1 < surface.path.size(); ++i)
       if (!axis_parallel(surface.path[i], surface.path[i + 1])) return false;

@@ -389,8 +389,10 @@ std::string region_fills(const CrossSection& section, const PaperFrame& f, const
     for (const Point& p : r.outline) x0 = std::min(x0, p.x), x1 = std::max(x1, p.x), y0 = std::min(y0, p.y), y1 = std::max(y1, p.y);
     const bool tall = (y1 - y0) > 1.5 * (x1 - x0);
     const std::string fill = patterns ? fmt::format("url(#{}-m{}-{})", prefix, r.material, tall ? "v" : "h") : fills[r.material].ground;
-    out += fmt::format("<path d=\"{}\" fill=\"{}\" stroke=\"{}\" stroke-width=\"{}\" stroke-linejoin=\"round\"/>\n",
-                       polyline_d(f, r.outline, true), fill, stroke, num(stroke_width));
+    std::string d = polyline_d(f, r.outline, true);
+    for (const auto& island : r.islands) d += " " + polyline_d(f, island, true);
+    out += fmt::format("<path d=\"{}\" fill=\"{}\" fill-rule=\"evenodd\" stroke=\"{}\" stroke-width=\"{}\" "
+                       "stroke-linejoin=\"round\"/>\n", d, fill, stroke, num(stroke_width));
   }
   return out;
 }
@@ -758,8 +760,11 @@ bool segment_hits_box(Point a, Point b, const Box& box) {
 
 std::string section_overlay(const CrossSection& section, const TriMesh& mesh, const PaperFrame& f) {
   std::string out;
-  for (const Region& r : section.regions)
+  for (const Region& r : section.regions) {
     out += fmt::format("<path d=\"{}\" fill=\"none\" stroke=\"#000\" stroke-opacity=\"0.45\" stroke-width=\"0.12\"/>\n", polyline_d(f, r.outline, true));
+    for (const auto& island : r.islands)
+      out += fmt::format("<path d=\"{}\" fill=\"none\" stroke=\"#000\" stroke-opacity=\"0.45\" stroke-width=\"0.12\"/>\n", polyline_d(f, island, true));
+  }
   out += fmt::format("<path d=\"{}\" fill=\"none\" stroke=\"#000\" stroke-width=\"0.3\" stroke-linejoin=\"round\"/>\n", outline_d(f, mesh));
   return out;
 }

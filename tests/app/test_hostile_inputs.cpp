@@ -82,7 +82,15 @@ fs::path scratch_folder() {
 }
 
 /// `edgeflux solve -q INPUT --json JSON` under coreutils timeout; stdout and stderr kept apart.
+/// Sanitized builds run several times slower (scripts/test-sanitized sets EDGEFLUX_TEST_TIME_SCALE);
+/// a hang is still a hang at any scale, so every time limit is stretched by that factor.
+int time_scale() {
+  const char* scale = std::getenv("EDGEFLUX_TEST_TIME_SCALE");
+  return scale && std::atoi(scale) > 0 ? std::atoi(scale) : 1;
+}
+
 Run solve(const fs::path& input, const fs::path& json, const fs::path& folder, int time_limit_s = run_time_limit_s) {
+  time_limit_s *= time_scale();
   const fs::path out = folder / "stdout.txt", err = folder / "stderr.txt";
   const std::string command = "timeout -k 5 " + std::to_string(time_limit_s) + " '" + std::string(EDGEFLUX_BINARY) +
                               "' solve -q '" + input.string() + "' --json '" + json.string() + "' >'" + out.string() +
@@ -99,7 +107,8 @@ Run solve(const fs::path& input, const fs::path& json, const fs::path& folder, i
 void check_run(const Run& run, const Expectation& e, const fs::path& input, const fs::path& json,
                int time_limit_s = run_time_limit_s) {
   CAPTURE(run.err);
-  CHECK_MESSAGE(run.exit_code != 124, "the program did not finish within " << time_limit_s << " s (a hang)");
+  CHECK_MESSAGE(run.exit_code != 124,
+                "the program did not finish within " << time_limit_s * time_scale() << " s (a hang)");
   CHECK_MESSAGE(run.exit_code < 128, "the program crashed (signal " << run.exit_code - 128 << ")");
   CHECK(run.exit_code == e.exit_code);
   // A wrong exit code is the finding; the output checks below would only repeat it (and a missing
