@@ -16,7 +16,10 @@
 #include "input/material_library.h"
 #include "input/read_detail_file.h"
 #include "pipeline/calculate.h"
+#include "pipeline/import_drawing.h"
 #include "pipeline/variants.h"
+#include "report/import_files.h"
+#include "report/import_picture.h"
 #include "report/json_results.h"
 #include "report/variants_page.h"
 #include "report/output_files.h"
@@ -134,6 +137,32 @@ int finish_variants(const std::string& heading, const std::vector<VariantSummary
   return failed == 0 ? 0 : 2;
 }
 
+struct ImportArgs {
+  std::string drawing, detail, picture, unit;
+  std::vector<std::string> mappings;
+};
+
+/// Lists the drawing's layers and what the mapping makes of it; writes the starting detail and
+/// the numbered picture when asked, both built before either is written.
+int run_import(const ImportArgs& args) {
+  ImportOptions options;
+  options.mappings = args.mappings;
+  if (!args.unit.empty()) options.unit = args.unit;
+  const DrawingImport import = import_drawing(args.drawing, options);
+  std::vector<OutputFile> files;
+  if (!args.detail.empty())
+    files.push_back({args.detail, starting_detail_xml(import, args.drawing, args.detail, args.picture)});
+  if (!args.picture.empty()) files.push_back({args.picture, import_picture_svg(import)});
+  check_output_paths(files);
+  fmt::print("{}", import_summary_text(import));
+  write_output_files(files);
+  for (const OutputFile& f : files) fmt::print("Written: {}\n", f.path);
+  if (!args.detail.empty())
+    fmt::print("Next: fill in the conductivities marked \"?\", choose the surfaces from S1…S{} in {}, then "
+               "edgeflux solve {}\n", import.runs.size(), args.detail, args.detail);
+  return 0;
+}
+
 std::function<void(int, int)> variant_progress(bool quiet) {
   if (quiet) return {};
   return [](int done, int total) { fmt::print(stderr, "\redgeflux: {}/{} variants solved{}", done, total, done == total ? "\n" : ""); };
@@ -205,6 +234,19 @@ int main(int argc, char** argv) {
     cmd->add_flag("-q,--quiet", args->quiet, "Do not print progress");
   }
 
+  ImportArgs import_args;
+  CLI::App* import_cmd = app.add_subcommand(
+      "import", "Read a DXF drawing: list its layers, and write a starting detail file whose regions come from the "
+                "drawing, with a picture that numbers every region and outline run");
+  import_cmd->add_option("drawing", import_args.drawing, "DXF file (R12 or later, ASCII)")->required();
+  import_cmd->add_option("--map", import_args.mappings,
+                         "LAYER=MATERIAL or LAYER=MATERIAL:LIBRARY-ENTRY (repeatable); a MATERIAL that is a library "
+                         "entry takes its λ. Without --map every layer with closed outlines becomes a material");
+  import_cmd->add_option("--units", import_args.unit, "Unit of the drawing's coordinates, overriding $INSUNITS")
+      ->check(CLI::IsMember({"mm", "cm", "m", "in", "ft"}));
+  import_cmd->add_option("-o,--detail", import_args.detail, "Write the starting detail file (XML) here");
+  import_cmd->add_option("--picture", import_args.picture, "Write the numbered picture of regions and outline runs (SVG) here");
+
   bool conformity_quiet = false;
   CLI::App* conformity_cmd = app.add_subcommand(
       "conformity", "Solve the ISO 10211 validation cases 1 and 2 (built in) and print the conformity table; "
@@ -219,6 +261,7 @@ int main(int argc, char** argv) {
   }
   try {
     if (*solve_cmd) return run_solve(solve);
+    if (*import_cmd) return run_import(import_args);
     if (*sweep_cmd || *compare_cmd) {
       const bool is_sweep = sweep_cmd->parsed();
       VariantArgs& args = is_sweep ? sweep : compare;

@@ -298,7 +298,7 @@ double twice_area(Point a, Point b, Point c) { return cross(b - a, c - a); }
 
 }  // namespace
 
-PlanarSubdivision planar_subdivision(const CrossSection& section) {
+PlanarSubdivision planar_subdivision(const CrossSection& section, bool for_solving) {
   PlanarSubdivision sub;
   const Frame frame = frame_of(section);
   sub.origin = frame.origin;
@@ -351,9 +351,10 @@ PlanarSubdivision planar_subdivision(const CrossSection& section) {
     if (largest[f] < 0) continue;
     const auto& v = tri.triangles[largest[f]];
     const Point c = (1.0 / 3.0) * (as_point(painted.points[v[0]]) + as_point(painted.points[v[1]]) + as_point(painted.points[v[2]]));
-    sub.seeds.push_back({c, painted.owner[f]});
+    sub.seeds.push_back({c, painted.owner[f], largest_area[f]});
   }
 
+  if (!for_solving) return sub;
   SnappedMarks snapped;
   std::size_t next = 0;
   for (const Surface& s : section.surfaces) {

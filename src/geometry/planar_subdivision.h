@@ -23,6 +23,7 @@ struct SubdivisionEdge {
 struct FaceSeed {
   Point at;
   int region = -1;
+  double room = 0.0;  ///< twice the area of the triangle it is the centroid of (grid steps²): larger, better for a label
 };
 
 /// All coordinates are local grid steps: grid point `origin` is (0, 0). Local coordinates are
@@ -50,7 +51,9 @@ struct PlanarSubdivision {
 /// outline encloses it. Surface paths and cut-offs are laid along the outline. Throws InputError for
 /// what a drawing gets wrong: an enclosed area no region covers, parts that touch only at a point,
 /// a part connected to no surface, a surface path or cut-off that does not follow the outline, a
-/// probe outside the section. O(n log n) in the number of points.
-PlanarSubdivision planar_subdivision(const CrossSection& section);
+/// probe outside the section. O(n log n) in the number of points. With `for_solving` false (a
+/// drawing being imported: no surfaces yet) paths, cut-offs, probes and the check that heat can
+/// flow through every part are left out.
+PlanarSubdivision planar_subdivision(const CrossSection& section, bool for_solving = true);
 
 }  // namespace edgeflux

@@ -164,7 +164,7 @@ void warn_about_sizes(CrossSection& section) {
 
 }  // namespace
 
-void validate_cross_section(CrossSection& section) {
+void validate_regions(CrossSection& section) {
   const SourceLocation file_only{section.file, 0};
   if (section.regions.empty())
     throw_input_error(file_only, "<regions>", "the section has no regions",
@@ -190,7 +190,11 @@ void validate_cross_section(CrossSection& section) {
                                     "coincide with equal coordinates", snapping_tolerance * 1000, snapping_tolerance * 1000));
     if (signed_area(region.outline) < 0.0) std::reverse(region.outline.begin(), region.outline.end());
   }
+}
 
+void validate_cross_section(CrossSection& section) {
+  validate_regions(section);
+  const SourceLocation file_only{section.file, 0};
   if (section.environments.empty())
     throw_input_error(file_only, "<environments>", "the section has no environment",
                       "define at least two environments, e.g. <environment id=\"inside\" temperature=\"20\" "

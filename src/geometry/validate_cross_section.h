@@ -10,4 +10,7 @@ namespace edgeflux {
 /// counter-clockwise. Throws InputError naming the object, its line and coordinates.
 void validate_cross_section(CrossSection& section);
 
+/// The regions' part of validate_cross_section alone (for a section still without surfaces).
+void validate_regions(CrossSection& section);
+
 }  // namespace edgeflux

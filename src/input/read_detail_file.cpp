@@ -18,6 +18,7 @@
 #include <unordered_map>
 
 #include "geometry/arc_points.h"
+#include "input/drawing_regions.h"
 #include "input/read_drawing.h"
 #include "geometry/validate_cross_section.h"
 #include <muParser.h>
@@ -124,7 +125,7 @@ class Reader {
   std::string file_;
   ParameterOverrides overrides_;
   double arc_tolerance_;
-  std::map<std::string, Drawing> drawings_;  ///< by path, each read once
+  std::map<std::string, CadDrawing> drawings_;  ///< by path, each read once
   CrossSection section_;
   // muparser keeps pointers to the variables: stable storage, one slot per parameter.
   std::vector<std::unique_ptr<double>> parameter_values_;
@@ -446,6 +447,14 @@ class Reader {
     Material m;
     m.id = required_text(e, "id");
     m.where = where(e);
+    // "?" is what `edgeflux import` leaves for the user to fill in.
+    for (const char* attribute : {"conductivity", "source"})
+      if (const char* value = e->Attribute(attribute); value && std::string(value) == "?")
+        throw_input_error(m.where, describe(e), fmt::format("has no {} yet (\"?\")", attribute),
+                          std::string(attribute) == "conductivity"
+                              ? "enter the design value λ in W/(m·K): the product's declared value, ISO 10456, or an entry "
+                                "of 'edgeflux materials' as library=\"ENTRY\" instead of conductivity"
+                              : "say where λ comes from (standard and table, or the product's declaration)");
     if (const char* entry = e->Attribute("library")) {
       const LibraryMaterial* found = find_library_material(entry);
       if (found == nullptr) {
@@ -540,14 +549,19 @@ class Reader {
     return (std::filesystem::path(file_).parent_path() / path).string();
   }
 
-  const Drawing& drawing_for(const XMLElement* e, const std::string& name) {
+  const CadDrawing& drawing_for(const XMLElement* e, const std::string& name) {
     const std::string path = beside_detail_file(name);
     auto it = drawings_.find(path);
     if (it == drawings_.end()) {
       DrawingOptions options;
       options.arc_tolerance = arc_tolerance_;
       if (const char* units = e->Attribute("units")) options.unit = units;
-      Drawing drawing = read_drawing(path, options);
+      CadDrawing drawing;
+      try {
+        drawing = read_drawing(path, options);
+      } catch (const InputError& problem) {  // name the detail file's line too: that is where the user starts
+        throw InputError(fmt::format("{}:{}: {}: {}", file_, e->GetLineNum(), describe(e), problem.what()));
+      }
       if (!drawing.unit_stated)
         section_.warnings.push_back(fmt::format(
             "the drawing {} states no unit ($INSUNITS); it was read in millimetres: give units=\"…\" on <drawing> "
@@ -565,13 +579,8 @@ class Reader {
   void read_drawing_regions(const XMLElement* e) {
     allow_attributes(e, {"file", "units"});
     const std::string name = required_text(e, "file");
-    struct Mapping {
-      std::string material;
-      int paint_order;
-      SourceLocation where;
-      std::string object;
-    };
-    std::map<std::string, Mapping> mapping;
+    std::vector<LayerMapping> mappings;
+    std::set<std::string> layers;
     for (const XMLElement* l = e->FirstChildElement(); l; l = l->NextSiblingElement()) {
       if (std::string(l->Name()) != "layer")
         throw_input_error(where(l), fmt::format("<{}>", l->Name()), "only <layer> belongs inside <drawing>",
@@ -579,71 +588,22 @@ class Reader {
       allow_attributes(l, {"name", "material", "paint-order"});
       const std::string layer = required_text(l, "name");
       const double order = l->Attribute("paint-order") ? required_number(l, "paint-order") : 0.0;
-      if (!mapping.emplace(layer, Mapping{required_text(l, "material"), static_cast<int>(order), where(l), describe(l)}).second)
+      if (!layers.insert(layer).second)
         throw_input_error(where(l), describe(l), fmt::format("layer \"{}\" is mapped twice", layer), "map each layer once");
+      mappings.push_back({layer, required_text(l, "material"), static_cast<int>(order), where(l), describe(l)});
     }
-    if (mapping.empty())
+    if (mappings.empty())
       throw_input_error(where(e), describe(e), "maps no layer to a material",
                         "add <layer name=\"LAYER\" material=\"MATERIAL-ID\"/> for each layer that holds regions "
                         "('edgeflux import DRAWING' lists the layers)");
-    const Drawing& drawing = drawing_for(e, name);
-    std::set<std::string> present;
-    for (const DrawingLayer& l : drawing.layers) present.insert(l.name);
-    for (const auto& [layer, m] : mapping)
-      if (!present.count(layer)) {
-        std::vector<std::string> names;
-        for (const DrawingLayer& l : drawing.layers)
-          if (l.outlines > 0) names.push_back(l.name);
-        throw_input_error(m.where, m.object, fmt::format("the drawing {} has no layer \"{}\"", name, layer),
-                          fmt::format("use a layer that holds closed outlines: {}",
-                                      names.empty() ? std::string("(none)") : fmt::format("{}", fmt::join(names, ", "))));
-      }
-    for (const std::string& spline : drawing.splines) {
-      const std::string layer = spline.substr(0, spline.find(':'));
-      if (mapping.count(layer))
-        throw_input_error(mapping.at(layer).where, mapping.at(layer).object,
-                          fmt::format("the drawing {} has a spline on this layer ({}), which edgeflux does not read", name, spline),
-                          "convert the spline to a polyline in the CAD program (flatten or explode it to arcs and lines)");
-    }
-    for (const DrawnShape& chain : drawing.chains) {
-      const auto m = mapping.find(chain.layer);
-      if (m == mapping.end()) continue;
-      throw_input_error(m->second.where, m->second.object,
-                        fmt::format("the lines {} on layer \"{}\" of {} do not close into an outline: their ends at {} and "
-                                    "{} are {:.3f} mm apart", chain.entities, chain.layer, name,
-                                    section_.format_point(chain.points.front()), section_.format_point(chain.points.back()),
-                                    distance(chain.points.front(), chain.points.back()) * 1000.0),
-                        "close the outline in the drawing (lines whose ends are within 0.01 mm are joined), or move "
-                        "open lines to a layer that is not mapped");
-    }
-    std::vector<const DrawnShape*> shapes;
-    for (const DrawnShape& s : drawing.outlines)
-      if (mapping.count(s.layer)) shapes.push_back(&s);
-    std::stable_sort(shapes.begin(), shapes.end(), [&](const DrawnShape* a, const DrawnShape* b) {
-      return mapping.at(a->layer).paint_order < mapping.at(b->layer).paint_order;
-    });
-    std::map<std::string, int> unmapped;
-    for (const DrawnShape& s : drawing.outlines)
-      if (!mapping.count(s.layer)) ++unmapped[s.layer];
-    if (!unmapped.empty()) {
-      std::vector<std::string> parts;
-      for (const auto& [layer, count] : unmapped)
-        parts.push_back(fmt::format("\"{}\" ({} outline{})", layer, count, count == 1 ? "" : "s"));
-      section_.warnings.push_back(fmt::format("drawing {}: layers with closed outlines that no <layer> maps were left out: {}",
-                                              name, fmt::join(parts, ", ")));
-    }
-    for (const DrawnShape* s : shapes) {
-      const Mapping& m = mapping.at(s->layer);
-      for (Point p : s->points)
-        if (!(std::abs(p.x) <= max_abs_coordinate_m && std::abs(p.y) <= max_abs_coordinate_m))
-          throw_input_error(m.where, m.object, fmt::format("{} on layer \"{}\" of {} has a point beyond ±{:g} m", s->entities,
-                                                           s->layer, name, max_abs_coordinate_m),
-                            "check the drawing's unit ($INSUNITS or units=\"…\" on <drawing>)");
+    const CadDrawing& drawing = drawing_for(e, name);
+    for (const MappedOutline& o : mapped_outlines(drawing, name, mappings, max_abs_coordinate_m, section_.warnings)) {
+      const LayerMapping& m = mappings[o.mapping];
       Region region;
       region.where = m.where;
-      region.name = fmt::format("{} {}", s->layer, s->entities);
-      region.outline = s->points;
-      region.islands = s->islands;
+      region.name = fmt::format("{} {}", o.shape->layer, o.shape->entities);
+      region.outline = o.shape->points;
+      region.islands = o.shape->islands;
       section_.regions.push_back(std::move(region));
       material_refs_.push_back({nullptr, m.material, m.where, m.object});
     }
@@ -750,7 +710,7 @@ class Reader {
       throw_input_error(where(e), describe(e), fmt::format("takes its path from drawing layer \"{}\", but the file reads no drawing", layer),
                         "add <drawing file=\"…\"> inside <regions> before using drawing-layer");
     std::vector<const DrawnShape*> chains;
-    const Drawing* source = nullptr;
+    const CadDrawing* source = nullptr;
     for (const auto& [path, drawing] : drawings_)
       for (const DrawnShape& chain : drawing.chains)
         if (chain.layer == layer) {

@@ -7,6 +7,8 @@
 
 #include <algorithm>
 #include <cmath>
+#include <cstdlib>
+#include <filesystem>
 #include <fstream>
 #include <functional>
 #include <set>
@@ -191,24 +193,30 @@ class Collector : public DL_CreationAdapter {
   }
   void endSequence() override { endEntity(); }
 
-  void addText(const DL_TextData&) override { ++ignored["TEXT"]; }
-  void addMText(const DL_MTextData&) override { ++ignored["MTEXT"]; }
-  void addPoint(const DL_PointData&) override { ++ignored["POINT"]; }
-  void addSolid(const DL_SolidData&) override { ++ignored["SOLID"]; }
-  void addTrace(const DL_TraceData&) override { ++ignored["TRACE"]; }
-  void add3dFace(const DL_3dFaceData&) override { ++ignored["3DFACE"]; }
-  void addXLine(const DL_XLineData&) override { ++ignored["XLINE"]; }
-  void addRay(const DL_RayData&) override { ++ignored["RAY"]; }
-  void addLeader(const DL_LeaderData&) override { ++ignored["LEADER"]; }
-  void addImage(const DL_ImageData&) override { ++ignored["IMAGE"]; }
-  void addAttribute(const DL_AttributeData&) override { ++ignored["ATTRIB"]; }
-  void addDimAlign(const DL_DimensionData&, const DL_DimAlignedData&) override { ++ignored["DIMENSION"]; }
-  void addDimLinear(const DL_DimensionData&, const DL_DimLinearData&) override { ++ignored["DIMENSION"]; }
-  void addDimRadial(const DL_DimensionData&, const DL_DimRadialData&) override { ++ignored["DIMENSION"]; }
-  void addDimDiametric(const DL_DimensionData&, const DL_DimDiametricData&) override { ++ignored["DIMENSION"]; }
-  void addDimAngular(const DL_DimensionData&, const DL_DimAngular2LData&) override { ++ignored["DIMENSION"]; }
-  void addDimAngular3P(const DL_DimensionData&, const DL_DimAngular3PData&) override { ++ignored["DIMENSION"]; }
-  void addDimOrdinate(const DL_DimensionData&, const DL_DimOrdinateData&) override { ++ignored["DIMENSION"]; }
+  /// Annotation is counted where the user drew it: in model space and named blocks, not in the
+  /// anonymous blocks (*D…, *X…) a CAD program writes to show a dimension or a hatch.
+  void ignore(const char* type) {
+    if (current_.empty() || current_[0] != '*') ++ignored[type];
+  }
+
+  void addText(const DL_TextData&) override { ignore("TEXT"); }
+  void addMText(const DL_MTextData&) override { ignore("MTEXT"); }
+  void addPoint(const DL_PointData&) override { ignore("POINT"); }
+  void addSolid(const DL_SolidData&) override { ignore("SOLID"); }
+  void addTrace(const DL_TraceData&) override { ignore("TRACE"); }
+  void add3dFace(const DL_3dFaceData&) override { ignore("3DFACE"); }
+  void addXLine(const DL_XLineData&) override { ignore("XLINE"); }
+  void addRay(const DL_RayData&) override { ignore("RAY"); }
+  void addLeader(const DL_LeaderData&) override { ignore("LEADER"); }
+  void addImage(const DL_ImageData&) override { ignore("IMAGE"); }
+  void addAttribute(const DL_AttributeData&) override { ignore("ATTRIB"); }
+  void addDimAlign(const DL_DimensionData&, const DL_DimAlignedData&) override { ignore("DIMENSION"); }
+  void addDimLinear(const DL_DimensionData&, const DL_DimLinearData&) override { ignore("DIMENSION"); }
+  void addDimRadial(const DL_DimensionData&, const DL_DimRadialData&) override { ignore("DIMENSION"); }
+  void addDimDiametric(const DL_DimensionData&, const DL_DimDiametricData&) override { ignore("DIMENSION"); }
+  void addDimAngular(const DL_DimensionData&, const DL_DimAngular2LData&) override { ignore("DIMENSION"); }
+  void addDimAngular3P(const DL_DimensionData&, const DL_DimAngular3PData&) override { ignore("DIMENSION"); }
+  void addDimOrdinate(const DL_DimensionData&, const DL_DimOrdinateData&) override { ignore("DIMENSION"); }
 
   void processCodeValuePair(unsigned int code, const std::string& value) override {
     if (code == 0) {
@@ -327,10 +335,60 @@ std::vector<Point> polyline_points(const std::vector<Vertex>& vertices, bool clo
   return points;
 }
 
+/// What the DXF library cannot be trusted with: a file that is not ASCII DXF, one too large to be a
+/// section, and counts (of vertices, loops, edges, knots) larger than the file could hold, which
+/// the library would allocate before reading them.
+void preflight(const std::string& path, const SourceLocation& where) {
+  constexpr std::uintmax_t max_bytes = 256u << 20;
+  std::error_code ec;
+  const std::uintmax_t bytes = std::filesystem::file_size(path, ec);
+  if (ec) throw_input_error(where, "drawing", "cannot be read (" + ec.message() + ")", "check the file name and its permissions");
+  if (bytes > max_bytes)
+    throw_input_error(where, "drawing", fmt::format("is {} MB, more than the {} MB a section drawing needs", bytes >> 20, max_bytes >> 20),
+                      "save only the section (its layers in model space) to a new DXF file");
+  std::ifstream in(path, std::ios::binary);
+  std::string code_line, value, entity;
+  int line = 0;
+  bool first = true;
+  const std::uintmax_t max_count = std::max<std::uintmax_t>(1000, bytes / 8);  // a vertex takes ≥ 8 bytes
+  while (std::getline(in, code_line) && std::getline(in, value)) {
+    line += 2;
+    auto trim = [](std::string& t) {
+      while (!t.empty() && (t.back() == '\r' || t.back() == ' ' || t.back() == '\t')) t.pop_back();
+      t.erase(0, t.find_first_not_of(" \t"));
+    };
+    trim(code_line), trim(value);
+    char* end = nullptr;
+    const long code = std::strtol(code_line.c_str(), &end, 10);
+    if (end == code_line.c_str() || *end != '\0') {
+      if (first && code_line.rfind("AutoCAD Binary DXF", 0) == 0)
+        throw_input_error(where, "drawing", "is a binary DXF file", "save the drawing as ASCII DXF from the CAD program");
+      throw_input_error({path, line - 1}, "drawing", "is not a DXF file: this line should hold a group code (a whole number)",
+                        "save the drawing as ASCII DXF (any version from R12 on) from the CAD program");
+    }
+    if (first && code != 999 && !(code == 0 && value == "SECTION"))
+      throw_input_error({path, line - 1}, "drawing", "is not a DXF file: it does not begin with a SECTION",
+                        "save the drawing as ASCII DXF (any version from R12 on) from the CAD program");
+    if (code != 999) first = false;
+    if (code == 0) entity = value.substr(0, 16);
+    const bool count = (entity == "LWPOLYLINE" && code == 90) || (entity == "HATCH" && (code == 91 || code == 93 || code == 98)) ||
+                       (entity == "SPLINE" && code >= 72 && code <= 74);
+    if (count) {
+      const double count = std::strtod(value.c_str(), nullptr);
+      if (count > static_cast<double>(max_count))
+        throw_input_error({path, line}, "drawing", fmt::format("declares a count of {} (group code {}) in a file of {} bytes: "
+                                                               "the file is damaged", value.substr(0, 20), code, bytes),
+                          "export the drawing again from the CAD program");
+    }
+  }
+  if (first)
+    throw_input_error(where, "drawing", "is empty", "export the drawing again from the CAD program as ASCII DXF");
+}
+
 }  // namespace
 
-Drawing read_drawing(const std::string& path, const DrawingOptions& options) {
-  Drawing drawing;
+CadDrawing read_drawing(const std::string& path, const DrawingOptions& options) {
+  CadDrawing drawing;
   drawing.file = path;
   const SourceLocation where{path, 0};
   {
@@ -339,6 +397,7 @@ Drawing read_drawing(const std::string& path, const DrawingOptions& options) {
       throw_input_error(where, "drawing", "cannot be opened (missing or unreadable)",
                         "check the file name in <drawing file=\"…\">; it is read relative to the detail file");
   }
+  preflight(path, where);
   Collector collector;
   collector.tolerance = options.arc_tolerance;
   DL_Dxf dxf;
@@ -378,6 +437,8 @@ Drawing read_drawing(const std::string& path, const DrawingOptions& options) {
   const double tolerance = options.arc_tolerance;
   int zero_length = 0;
   std::string zero_length_first;
+  constexpr long max_placed_entities = 2'000'000;
+  long placed = 0;
 
   std::function<void(const std::string&, const Transform&, const std::string&, int)> expand =
       [&](const std::string& block, const Transform& transform, const std::string& insert_layer, int depth) {
@@ -389,6 +450,11 @@ Drawing read_drawing(const std::string& path, const DrawingOptions& options) {
         const int instance = instances++;
         const Point base = collector.block_base.count(block) ? collector.block_base[block] : Point{};
         for (const RawEntity& e : found->second) {
+          // Arrays of nested blocks multiply: a few lines can stand for billions of entities.
+          if (++placed > max_placed_entities)
+            throw_input_error(where, fmt::format("block '{}'", block),
+                              fmt::format("expands to more than {} entities through inserts and arrays", max_placed_entities),
+                              "explode the arrays the section does not need, or draw the section without them");
           const std::string layer = (e.layer == "0" && !insert_layer.empty()) ? insert_layer : e.layer;
           auto place = [&](Point p) {
             if (e.mirrored) p.x = -p.x;

@@ -28,7 +28,7 @@ struct DrawingLayer {
   Point lower{}, upper{};                  ///< m, extent of what was read
 };
 
-struct Drawing {
+struct CadDrawing {
   std::string file;
   std::string unit;                        ///< "mm", "cm", "m", "in", "ft"
   double metres_per_unit = 0.001;
@@ -55,6 +55,6 @@ struct DrawingOptions {
 /// without either, millimetres (`unit_stated` false). Throws InputError naming the file (and the
 /// layer, entity handle and coordinates where there are any) for a file that cannot be read, an
 /// unknown unit, or a block inserted into itself.
-Drawing read_drawing(const std::string& path, const DrawingOptions& options);
+CadDrawing read_drawing(const std::string& path, const DrawingOptions& options);
 
 }  // namespace edgeflux

@@ -73,16 +73,6 @@ Point unit(Point v) {
   return n > 0 ? (1.0 / n) * v : Point{1, 0};
 }
 
-std::string polyline_d(const PaperFrame& f, const std::vector<Point>& world, bool closed) {
-  std::string d;
-  for (std::size_t i = 0; i < world.size(); ++i) {
-    const Point p = f.to_paper(world[i]);
-    d += fmt::format("{}{} {}", i == 0 ? "M" : " L", num(p.x), num(p.y));
-  }
-  if (closed) d += " Z";
-  return d;
-}
-
 /// Drops interior points of straight runs, so long straight edges become one segment.
 std::vector<Point> simplified(const std::vector<Point>& pts, bool closed) {
   if (pts.size() < 3) return pts;
@@ -157,7 +147,7 @@ std::string outline_d(const PaperFrame& f, const TriMesh& mesh) {
   for (const std::vector<int>& loop : boundary_loops(mesh)) {
     std::vector<Point> pts;
     for (int e : loop) pts.push_back(mesh.points[mesh.boundary_edges[e].a]);
-    d += polyline_d(f, simplified(pts, true), true) + " ";
+    d += svg::path_d(f, simplified(pts, true), true) + " ";
   }
   return d;
 }
@@ -389,8 +379,8 @@ std::string region_fills(const CrossSection& section, const PaperFrame& f, const
     for (const Point& p : r.outline) x0 = std::min(x0, p.x), x1 = std::max(x1, p.x), y0 = std::min(y0, p.y), y1 = std::max(y1, p.y);
     const bool tall = (y1 - y0) > 1.5 * (x1 - x0);
     const std::string fill = patterns ? fmt::format("url(#{}-m{}-{})", prefix, r.material, tall ? "v" : "h") : fills[r.material].ground;
-    std::string d = polyline_d(f, r.outline, true);
-    for (const auto& island : r.islands) d += " " + polyline_d(f, island, true);
+    std::string d = svg::path_d(f, r.outline, true);
+    for (const auto& island : r.islands) d += " " + svg::path_d(f, island, true);
     out += fmt::format("<path d=\"{}\" fill=\"{}\" fill-rule=\"evenodd\" stroke=\"{}\" stroke-width=\"{}\" "
                        "stroke-linejoin=\"round\"/>\n", d, fill, stroke, num(stroke_width));
   }
@@ -420,7 +410,7 @@ Drawing detail_drawing(const CrossSection& section, const Calculation& calc) {
 
   // Surfaces in their environment's colour; adiabatic edges as bold chain lines (cut-off planes).
   for (const auto& [tag, pts] : boundary_runs(mesh)) {
-    const std::string d = polyline_d(f, pts, false);
+    const std::string d = svg::path_d(f, pts, false);
     if (tag < 0)
       body += fmt::format("<path d=\"{0}\" fill=\"none\" stroke=\"#fff\" stroke-width=\"0.9\"/>"
                           "<path d=\"{0}\" fill=\"none\" stroke=\"#111\" stroke-width=\"0.6\" stroke-dasharray=\"2.6 0.7 0.5 0.7\"/>\n", d);
@@ -761,9 +751,9 @@ bool segment_hits_box(Point a, Point b, const Box& box) {
 std::string section_overlay(const CrossSection& section, const TriMesh& mesh, const PaperFrame& f) {
   std::string out;
   for (const Region& r : section.regions) {
-    out += fmt::format("<path d=\"{}\" fill=\"none\" stroke=\"#000\" stroke-opacity=\"0.45\" stroke-width=\"0.12\"/>\n", polyline_d(f, r.outline, true));
+    out += fmt::format("<path d=\"{}\" fill=\"none\" stroke=\"#000\" stroke-opacity=\"0.45\" stroke-width=\"0.12\"/>\n", svg::path_d(f, r.outline, true));
     for (const auto& island : r.islands)
-      out += fmt::format("<path d=\"{}\" fill=\"none\" stroke=\"#000\" stroke-opacity=\"0.45\" stroke-width=\"0.12\"/>\n", polyline_d(f, island, true));
+      out += fmt::format("<path d=\"{}\" fill=\"none\" stroke=\"#000\" stroke-opacity=\"0.45\" stroke-width=\"0.12\"/>\n", svg::path_d(f, island, true));
   }
   out += fmt::format("<path d=\"{}\" fill=\"none\" stroke=\"#000\" stroke-width=\"0.3\" stroke-linejoin=\"round\"/>\n", outline_d(f, mesh));
   return out;

@@ -120,6 +120,16 @@ int PointLocator::triangle_at(Point p) const {
   return best;
 }
 
+std::string path_d(const PaperFrame& f, const std::vector<Point>& world, bool closed) {
+  std::string d;
+  for (std::size_t i = 0; i < world.size(); ++i) {
+    const Point p = f.to_paper(world[i]);
+    d += fmt::format("{}{} {}", i == 0 ? "M" : " L", num(p.x), num(p.y));
+  }
+  if (closed) d += " Z";
+  return d;
+}
+
 std::string open_svg(double width_mm, double height_mm, std::string_view title) {
   return fmt::format(
       "<svg xmlns=\"http://www.w3.org/2000/svg\" width=\"{0}mm\" height=\"{1}mm\" viewBox=\"0 0 {0} {1}\" "

@@ -27,6 +27,9 @@ struct PaperFrame {
   Point to_paper(Point p) const { return {paper_x0 + mm(p.x - world_x0), paper_y0 + mm(world_y1 - p.y)}; }
 };
 
+/// SVG path data ("M x y L x y …", closed with Z) of a polyline in section coordinates.
+std::string path_d(const PaperFrame& f, const std::vector<Point>& world, bool closed);
+
 /// The smallest of the usual drawing scales 1:1, 1:2, 1:5, 1:10, 1:15, 1:20, 1:25, 1:50, 1:100, … that
 /// is at least `needed` (a denominator).
 double standard_scale(double needed);

@@ -9,29 +9,16 @@
 #include <sstream>
 #include <sys/wait.h>
 
+#include "../support/run_program.h"
 #include "../test_support.h"
 
 namespace fs = std::filesystem;
 
 namespace {
 
-struct Run { int exit_code; std::string output; };
-
-Run run_program(const std::string& arguments) {
-  const std::string command = std::string(EDGEFLUX_BINARY) + " " + arguments + " 2>&1";
-  FILE* pipe = popen(command.c_str(), "r");
-  std::string output;
-  char buffer[4096];
-  while (std::size_t n = fread(buffer, 1, sizeof buffer, pipe)) output.append(buffer, n);
-  const int status = pclose(pipe);
-  return {WIFEXITED(status) ? WEXITSTATUS(status) : -1, output};
-}
-
-fs::path scratch_folder() {
-  const fs::path folder = fs::temp_directory_path() / ("edgeflux-tests-" + std::to_string(::getpid()));
-  fs::create_directories(folder);
-  return folder;
-}
+using Run = edgeflux::test::ProgramRun;
+using edgeflux::test::run_program;
+fs::path scratch_folder() { return edgeflux::test::scratch_folder("tests"); }
 
 // A good two-layer wall; each case below breaks one thing in it.
 const std::string good_body = R"(

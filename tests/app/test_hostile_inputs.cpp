@@ -15,6 +15,7 @@
 #include <unistd.h>
 #include <vector>
 
+#include "../support/run_program.h"
 #include "../test_support.h"
 
 namespace fs = std::filesystem;
@@ -75,11 +76,7 @@ struct Run {
   std::string out, err;
 };
 
-fs::path scratch_folder() {
-  const fs::path folder = fs::temp_directory_path() / ("edgeflux-hostile-" + std::to_string(::getpid()));
-  fs::create_directories(folder);
-  return folder;
-}
+fs::path scratch_folder() { return edgeflux::test::scratch_folder("hostile"); }
 
 /// `edgeflux solve -q INPUT --json JSON` under coreutils timeout; stdout and stderr kept apart.
 /// Sanitized builds run several times slower (scripts/test-sanitized sets EDGEFLUX_TEST_TIME_SCALE);

@@ -1,6 +1,6 @@
 // DXF drawings as the source of a section's geometry: what the reader takes from each kind of
 // entity, that a drawn section solves exactly as the same section typed in, and the messages for
-// what real drawings get wrong. The drawings are made by scripts/make-test-drawings (ezdxf, an
+// what real drawings get wrong. The drawings are made by scripts/make-drawings (ezdxf, an
 // independent DXF writer).
 #include <doctest/doctest.h>
 
@@ -18,20 +18,20 @@ namespace {
 
 std::string drawing_path(const std::string& name) { return test::source_path("tests/data/drawings/" + name); }
 
-Drawing read(const std::string& name, std::optional<std::string> unit = std::nullopt) {
+CadDrawing read(const std::string& name, std::optional<std::string> unit = std::nullopt) {
   DrawingOptions options;
   options.unit = unit;
   return read_drawing(drawing_path(name), options);
 }
 
-const DrawingLayer& layer(const Drawing& d, const std::string& name) {
+const DrawingLayer& layer(const CadDrawing& d, const std::string& name) {
   for (const DrawingLayer& l : d.layers)
     if (l.name == name) return l;
   FAIL("no layer " << name);
   throw std::logic_error("unreachable");
 }
 
-std::vector<const DrawnShape*> outlines_on(const Drawing& d, const std::string& name) {
+std::vector<const DrawnShape*> outlines_on(const CadDrawing& d, const std::string& name) {
   std::vector<const DrawnShape*> found;
   for (const DrawnShape& s : d.outlines)
     if (s.layer == name) found.push_back(&s);
@@ -87,7 +87,7 @@ bool has_warning(const CrossSection& section, const std::string& fragment) {
 
 TEST_CASE("drawing kit: blocks in arrays and nested, scaled and turned inserts, hatches with islands, bulges, "
           "chained lines and arcs, circles; annotations counted, not read (exact geometry of the drawing)") {
-  const Drawing d = read("kit.dxf");
+  const CadDrawing d = read("kit.dxf");
   CHECK(d.unit == "mm");
   CHECK(d.unit_stated);
   CHECK(d.metres_per_unit == 0.001);
@@ -228,10 +228,10 @@ TEST_CASE("a detail from a drawing turned by 30° and rounded to 0.001 mm agrees
 }
 
 TEST_CASE("drawing units: $INSUNITS read, a unit given in the detail file overrides it (exact conversions)") {
-  const Drawing metres = read("case2.dxf");
+  const CadDrawing metres = read("case2.dxf");
   CHECK(metres.unit == "m");
   CHECK(metres.unit_stated);
-  const Drawing inches = read("case2.dxf", std::string("in"));
+  const CadDrawing inches = read("case2.dxf", std::string("in"));
   CHECK(inches.metres_per_unit == 0.0254);  // 1 in = 25.4 mm exactly (international inch, 1959)
   REQUIRE(inches.outlines.size() == metres.outlines.size());
   for (std::size_t i = 0; i < metres.outlines.size(); ++i)
@@ -239,7 +239,7 @@ TEST_CASE("drawing units: $INSUNITS read, a unit given in the detail file overri
       CHECK(inches.outlines[i].points[k].x == doctest::Approx(0.0254 * metres.outlines[i].points[k].x).epsilon(1e-12));
       CHECK(inches.outlines[i].points[k].y == doctest::Approx(0.0254 * metres.outlines[i].points[k].y).epsilon(1e-12));
     }
-  const Drawing feet = read("case2.dxf", std::string("ft"));
+  const CadDrawing feet = read("case2.dxf", std::string("ft"));
   CHECK(feet.metres_per_unit == doctest::Approx(0.3048).epsilon(1e-15));  // 1 ft = 0.3048 m exactly
   CHECK(read("case2.dxf", std::string("cm")).metres_per_unit == doctest::Approx(0.01).epsilon(1e-15));
   CHECK(read("case2.dxf", std::string("mm")).metres_per_unit == doctest::Approx(0.001).epsilon(1e-15));
@@ -247,7 +247,7 @@ TEST_CASE("drawing units: $INSUNITS read, a unit given in the detail file overri
   // No $INSUNITS: millimetres with a warning that names the fix; the drawing is in metres, so
   // units="m" is needed, and without it the 1 m high wall is read as 1 mm, which a warning calls
   // implausible for a junction.
-  const Drawing unstated = read("fault-no-unit.dxf");
+  const CadDrawing unstated = read("fault-no-unit.dxf");
   CHECK(!unstated.unit_stated);
   CHECK(unstated.unit == "mm");
   const std::string layers = "<layer name=\"WALL\" material=\"m\"/>";
@@ -276,7 +276,7 @@ TEST_CASE("messages for what drawings get wrong: open outlines with their gap, d
     CHECK(error.find("(0, 0.5) mm") != std::string::npos);
   }
   SUBCASE("duplicates and a zero-length line are dropped with a note; the wall solves") {
-    const Drawing d = read("fault-duplicates.dxf");
+    const CadDrawing d = read("fault-duplicates.dxf");
     CHECK(outlines_on(d, "WALL").size() == 1);
     const auto noted = [&](const std::string& fragment) {
       return std::any_of(d.notes.begin(), d.notes.end(), [&](const std::string& n) { return n.find(fragment) != std::string::npos; });

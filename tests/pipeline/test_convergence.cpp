@@ -6,6 +6,7 @@
 #include <filesystem>
 #include <sys/wait.h>
 
+#include "../support/run_program.h"
 #include "../test_support.h"
 #include "validation/iso10211_conformity.h"
 
@@ -112,13 +113,8 @@ TEST_CASE("refinement terminates on every shipped detail, example and reference 
 }
 
 TEST_CASE("the conformity subcommand passes and names the classification (ISO 10211 Annex C, Cases 1 and 2)") {
-  const std::string command = std::string(EDGEFLUX_BINARY) + " conformity -q";
-  FILE* pipe = popen(command.c_str(), "r");
-  std::string output;
-  char buffer[4096];
-  while (std::size_t n = fread(buffer, 1, sizeof buffer, pipe)) output.append(buffer, n);
-  const int status = pclose(pipe);
-  CHECK(WEXITSTATUS(status) == 0);
+  const auto [exit_code, output] = test::run_program("conformity -q");
+  CHECK(exit_code == 0);
   CHECK(output.find("0 outside tolerance") != std::string::npos);
   CHECK(output.find("high-precision method") != std::string::npos);
   const ConformityReport report = iso10211_conformity();

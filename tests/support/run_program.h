@@ -1,0 +1,36 @@
+// Running the real edgeflux program from a test, and a scratch folder for its files.
+#pragma once
+
+#include <cstdio>
+#include <filesystem>
+#include <string>
+#include <sys/wait.h>
+#include <unistd.h>
+
+namespace edgeflux::test {
+
+struct ProgramRun {
+  int exit_code = -1;
+  std::string output;  ///< standard output and standard error together
+};
+
+/// Runs `edgeflux ARGUMENTS` through the shell (arguments quoted by the caller).
+inline ProgramRun run_program(const std::string& arguments) {
+  const std::string command = std::string(EDGEFLUX_BINARY) + " " + arguments + " 2>&1";
+  FILE* pipe = popen(command.c_str(), "r");
+  std::string output;
+  char buffer[4096];
+  while (std::size_t n = fread(buffer, 1, sizeof buffer, pipe)) output.append(buffer, n);
+  const int status = pclose(pipe);
+  return {WIFEXITED(status) ? WEXITSTATUS(status) : -1, output};
+}
+
+/// A folder of this test process under the system's temporary folder, created if needed.
+inline std::filesystem::path scratch_folder(const std::string& purpose) {
+  const std::filesystem::path folder =
+      std::filesystem::temp_directory_path() / ("edgeflux-" + purpose + "-" + std::to_string(::getpid()));
+  std::filesystem::create_directories(folder);
+  return folder;
+}
+
+}  // namespace edgeflux::test
