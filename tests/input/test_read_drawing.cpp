@@ -353,3 +353,23 @@ TEST_CASE("paint-order decides which layer covers another where outlines overlap
   CHECK(covered < with_aluminium);
   MESSAGE("Case 2 layers in entity order: L2D ", with_aluminium, " W/(m·K); insulation painted last: ", covered);
 }
+
+TEST_CASE("ellipses are read as chords on the ellipse, whole or as an arc closed by a line (exact geometry)") {
+  const CadDrawing d = read("ellipse.dxf");
+  const auto whole = outlines_on(d, "ELLIPSE");
+  REQUIRE(whole.size() == 1);
+  // Every chord point on x'²/a² + y'²/b² = 1 in the ellipse's own axes (a = 100, b = 40 mm, turned 30°).
+  const double c = std::cos(M_PI / 6), s = std::sin(M_PI / 6);
+  for (Point p : whole[0]->points) {
+    const double dx = p.x - 0.5, dy = p.y - 0.3;
+    const double u = c * dx + s * dy, v = -s * dx + c * dy;
+    CHECK(u * u / (0.1 * 0.1) + v * v / (0.04 * 0.04) == doctest::Approx(1.0).epsilon(1e-9));
+  }
+  CHECK(std::abs(area(whole[0]->points)) == doctest::Approx(M_PI * 0.1 * 0.04).epsilon(1e-3));  // π a b, chorded
+  // The half ellipse and its diameter close into one outline of area π a b / 2.
+  const auto half = outlines_on(d, "HALF");
+  REQUIRE(half.size() == 1);
+  CHECK(std::abs(area(half[0]->points)) == doctest::Approx(M_PI * 0.08 * 0.03 / 2).epsilon(1e-3));
+  CHECK(half[0]->entities.find("ELLIPSE") != std::string::npos);
+  CHECK(half[0]->entities.find("LINE") != std::string::npos);
+}
