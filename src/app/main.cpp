@@ -171,10 +171,14 @@ std::function<void(int, int)> variant_progress(bool quiet) {
 }  // namespace
 
 int main(int argc, char** argv) {
-  CLI::App app{"edgeflux — two-dimensional thermal bridge assessment of building-envelope junctions "
+  CLI::App app{"edgeflux: two-dimensional thermal bridge assessment of building-envelope junctions "
                "(steady-state conduction, ISO 10211 methods)"};
   app.require_subcommand(1);
-  app.set_version_flag("--version", std::string(EDGEFLUX_VERSION));
+  app.set_version_flag("--version", fmt::format("edgeflux {}\n"
+                                                "Licence GPL-3.0-or-later <https://www.gnu.org/licenses/gpl-3.0.html>: you may "
+                                                "change and share it; there is no warranty.\n"
+                                                "Results depend on inputs and modelling choices; building codes and qualified "
+                                                "professionals decide compliance.", EDGEFLUX_VERSION));
 
   SolveArgs solve;
   CLI::App* solve_cmd = app.add_subcommand("solve", "Solve a detail file: heat flows, L2D, surface and probe temperatures");
