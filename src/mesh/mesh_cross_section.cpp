@@ -45,11 +45,6 @@ std::vector<std::array<int, 3>> triangle_neighbours(const std::vector<std::array
   return neighbours;
 }
 
-Point centroid(const RawTriangulation& raw, int t) {
-  const auto& tri = raw.triangles[t];
-  return (1.0 / 3.0) * (raw.points[tri[0]] + raw.points[tri[1]] + raw.points[tri[2]]);
-}
-
 }  // namespace
 
 bool is_rectilinear(const CrossSection& section) {

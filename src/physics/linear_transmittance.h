@@ -24,4 +24,10 @@ double linear_transmittance(double coupling_coefficient_2d,
 double temperature_factor(double surface_temperature, double interior_temperature,
                           double exterior_temperature);
 
+/// The inverse: θsi = θe + fRsi·(θi − θe), the surface temperature a temperature factor gives in
+/// another climate (a steady linear field scales with the driving difference).
+inline double surface_temperature_for_factor(double factor, double interior_temperature, double exterior_temperature) {
+  return exterior_temperature + factor * (interior_temperature - exterior_temperature);
+}
+
 }  // namespace edgeflux

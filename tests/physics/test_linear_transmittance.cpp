@@ -59,6 +59,14 @@ TEST_CASE("temperature factor of a given surface temperature") {
   CHECK(temperature_factor(-5.0, 20.0, -5.0) == 0.0);  // surface at outdoor temperature
 }
 
+TEST_CASE("surface temperature of a temperature factor in another climate (ISO 13788: θsi = θe + fRsi·(θi − θe))") {
+  // Hand computation: fRsi 0.7048 at 20 / −5 °C is 12.62 °C; at 21 / −10 °C it is −10 + 0.7048·31 = 11.8488 °C.
+  CHECK(surface_temperature_for_factor(0.7048, 20.0, -5.0) == doctest::Approx(12.62).epsilon(1e-12));
+  CHECK(surface_temperature_for_factor(0.7048, 21.0, -10.0) == doctest::Approx(11.8488).epsilon(1e-12));
+  for (double t : {-5.0, 3.3, 12.62, 20.0})  // the exact inverse of temperature_factor
+    CHECK(surface_temperature_for_factor(temperature_factor(t, 20.0, -5.0), 20.0, -5.0) == doctest::Approx(t).epsilon(1e-14));
+}
+
 TEST_CASE("plain wall: fRsi = 1 − Rsi·U with Rsi = 0.25") {
   // Known result (ISO 13788, ISO 10211): in 1D the heat flux is q = U·(θi − θe) and the inner
   // surface sits Rsi·q below θi, so fRsi = 1 − Rsi·U exactly; tolerance covers rounding only.
