@@ -41,7 +41,7 @@ TEST_CASE("every library material has a positive λ and a source; typical values
     CHECK((m.basis == "normative" || m.basis == "typical"));
     if (m.basis == "typical") CHECK(m.source.find("typical") != std::string::npos);
   }
-  // Spot checks against DOMAIN.md §7 (ISO 10456:2007 Table 3, from memory).
+  // Spot checks against ISO 10456:2007 Table 3 (from memory).
   CHECK(find_library_material("concrete-2400")->conductivity == 2.0);
   CHECK(find_library_material("reinforced-concrete-2pct")->conductivity == 2.5);
   CHECK(find_library_material("stainless-steel")->conductivity == 17);

@@ -43,7 +43,8 @@ TEST_CASE("Richardson estimate: exact for Q = Q∞ + C N^-0.5, observed rate rec
 }
 
 TEST_CASE("Case 2: the heat-flow error bar contains the difference to the converged 9.4915 W/m, at two targets") {
-  // DOMAIN.md §6: converged Φ = 9.4915 W/m from two independent fine-mesh calculations (±1e-4).
+  // Computed reference: converged Φ = 9.4915 W/m from two independent fine-mesh calculations
+  // (quadratic finite elements; a second-order finite-volume code) agreeing to 1e-4 W/m.
   for (double target : {1e-3, 1e-4}) {
     CalculationOptions options;
     options.target.coupling_relative = target;
@@ -79,7 +80,7 @@ TEST_CASE("external corner: the error bar of S contains the difference to the fi
     CAPTURE(target);
     CAPTURE(shape);
     CAPTURE(bar);
-    CHECK(std::abs(shape - 0.5587) <= bar + 0.0003);  // DOMAIN.md §6 fine-mesh value and its uncertainty
+    CHECK(std::abs(shape - 0.5587) <= bar + 0.0003);  // computed fine-mesh reference 0.5587 ± 0.0003
   }
 }
 

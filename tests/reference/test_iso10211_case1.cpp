@@ -6,27 +6,27 @@
 #include <numbers>
 
 #include "../test_support.h"
+#include "validation/iso10211_conformity.h"
 
 using namespace edgeflux;
 
-namespace {
-/// Exact temperature in the full square 0 ≤ x, y ≤ L with the edge y = L at 20 °C and the others
-/// at 0 °C: θ = 20 Σ_{n odd} 4/(nπ) sin(nπx/L) sinh(nπy/L)/sinh(nπ) (Incropera & DeWitt,
-/// Fundamentals of Heat and Mass Transfer, two-dimensional conduction by separation of variables).
-double series_temperature(double x, double y, double side) {
-  double sum = 0.0;
-  for (int n = 1; n < 400; n += 2) {
-    const double k = n * std::numbers::pi / side;
-    // sinh(k y) / sinh(k L) written as exponentials so large n does not overflow.
-    const double ratio = std::exp(k * (y - side)) * (1.0 - std::exp(-2.0 * k * y)) / (1.0 - std::exp(-2.0 * k * side));
-    sum += 4.0 / (n * std::numbers::pi) * std::sin(k * x) * ratio;
-  }
-  return 20.0 * sum;
-}
-}  // namespace
 
-TEST_CASE("series solution: centre of the full square is 5 °C (DOMAIN.md §6 check, by symmetry)") {
-  CHECK(series_temperature(1.0, 1.0, 2.0) == doctest::Approx(5.0).epsilon(1e-12));
+TEST_CASE("series solution (the conformity check's own code): centre of the full square is 5 °C (exact, by "
+          "symmetry: four rotated edge problems sum to 20 °C), and the edges hold their temperatures") {
+  CHECK(iso10211_case1_series(1.0, 1.0, 2.0) == doctest::Approx(5.0).epsilon(1e-12));
+  // Exact boundary values: 0 °C on x = 0, x = L and y = 0; 20 °C inside the heated edge (the series
+  // converges slowly there: 0.1 K at a quarter of the side from the corners).
+  for (double t : {0.3, 1.0, 1.7}) {
+    CHECK(std::abs(iso10211_case1_series(0.0, t, 2.0)) < 1e-12);
+    CHECK(std::abs(iso10211_case1_series(2.0, t, 2.0)) < 1e-9);
+    CHECK(std::abs(iso10211_case1_series(t, 0.0, 2.0)) < 1e-12);
+  }
+  CHECK(std::abs(iso10211_case1_series(1.0, 2.0 - 1e-9, 2.0) - 20.0) < 0.1);
+  // Superposition (exact): the four edge problems of the square sum to 20 °C at any inner point.
+  const double x = 0.37, y = 1.21, L = 2.0;
+  const double sum = iso10211_case1_series(x, y, L) + iso10211_case1_series(L - x, L - y, L) +
+                     iso10211_case1_series(y, L - x, L) + iso10211_case1_series(L - y, x, L);
+  CHECK(sum == doctest::Approx(20.0).epsilon(1e-9));
 }
 
 TEST_CASE("ISO 10211 Case 1: 28 points within 0.1 K of the table and 0.01 K of the series") {
@@ -42,11 +42,11 @@ TEST_CASE("ISO 10211 Case 1: 28 points within 0.1 K of the table and 0.01 K of t
   for (int row = 1; row <= 7; ++row) {
     for (int col = 1; col <= 4; ++col) {
       const double computed = test::probe(calc, "r" + std::to_string(row) + "c" + std::to_string(col));
-      const double exact = series_temperature(0.25 * col, 2.0 - 0.25 * row, 2.0);
+      const double exact = iso10211_case1_series(0.25 * col, 2.0 - 0.25 * row, 2.0);
       CAPTURE(row);
       CAPTURE(col);
       CHECK(std::abs(computed - table[row - 1][col - 1]) <= 0.1);  // the standard's tolerance
-      CHECK(std::abs(computed - exact) <= 0.01);                   // DOMAIN.md §6 requirement
+      CHECK(std::abs(computed - exact) <= 0.01);                   // common practice: 0.01 K to the exact series (Incropera & DeWitt, separation of variables)
       worst_series = std::max(worst_series, std::abs(computed - exact));
       worst_table = std::max(worst_table, std::abs(computed - table[row - 1][col - 1]));
     }

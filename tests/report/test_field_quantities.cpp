@@ -49,7 +49,7 @@ Calculation solve_text(const std::string& body) {
 
 TEST_CASE("heat-flux density of a layered wall is the 1D flux in every triangle") {
   const Calculation calc = solve_text(wall);
-  // 1D layered wall: q = ΔT / (Rsi + Σ d/λ + Rse) (DOMAIN §6, exact for the finite-volume solution,
+  // 1D layered wall: q = ΔT / (Rsi + Σ d/λ + Rse) (exact for the finite-volume solution,
   // which is linear in each layer).
   const double q_1d = 25.0 / (0.13 + 0.2 / 0.8 + 0.1 / 0.035 + 0.04);
   const auto flux = triangle_heat_flux(calc.mesh, calc.heat_loss.problem.triangle_conductivity, calc.heat_loss.temperature);
