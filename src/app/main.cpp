@@ -9,8 +9,11 @@
 #include <cmath>
 #include <cstdio>
 #include <cstdlib>
+#include <fstream>
 #include <iostream>
+#include <sstream>
 
+#include "app/output_writer.h"
 #include "core/atomic_file.h"
 #include "core/error.h"
 #include "input/material_library.h"
@@ -22,6 +25,7 @@
 #include "report/import_picture.h"
 #include "report/json_results.h"
 #include "report/variants_page.h"
+#include "report/html_report.h"
 #include "report/output_files.h"
 #include "report/summary_text.h"
 #include "validation/iso10211_conformity.h"
@@ -58,6 +62,16 @@ ParameterOverrides parse_settings(const std::vector<std::string>& settings) {
   return overrides;
 }
 
+std::string read_whole_file(const std::string& path) {
+  std::ifstream in(path, std::ios::binary);
+  if (!in)
+    throw_input_error({path, 0}, "detail file", "cannot be read again to embed it in the report",
+                      "keep the file in place while edgeflux runs");
+  std::ostringstream text;
+  text << in.rdbuf();
+  return text.str();
+}
+
 int run_solve(const SolveArgs& args) {
   CalculationOptions options;
   if (args.density > 0.0) options.density = args.density;
@@ -75,8 +89,13 @@ int run_solve(const SolveArgs& args) {
   const Calculation calc = calculate(section, options);
   // Every output is built in memory first, so a failure leaves no file behind.
   std::vector<OutputFile> files;
-  if (!args.json_file.empty()) files.push_back({args.json_file, json_results(section, calc).dump(2) + "\n"});
-  for (OutputFile& f : build_output_files(section, calc, args.outputs)) files.push_back(std::move(f));
+  if (!args.json_file.empty()) files.push_back({args.json_file, json_results(section, calc)});
+  ReportProvenance provenance;
+  if (!args.outputs.html_report.empty()) {
+    // The report embeds the detail file and carries the validation of the very build that made it.
+    provenance = {read_whole_file(args.detail_file), report_timestamp(), iso10211_conformity()};
+  }
+  for (OutputFile& f : build_output_files(section, calc, args.outputs, provenance)) files.push_back(std::move(f));
   check_output_paths(files);  // every path is checked before the first file is written
   fmt::print("{}", summary_text(section, calc));
   write_output_files(files);

@@ -10,10 +10,14 @@
 
 namespace edgeflux {
 
+/// The documented largest mesh (docs/detail-format.md, Limits): a finer mesh would need more
+/// memory and time than a junction calculation should, and says the input asks for too much.
+inline constexpr std::size_t node_limit = 2'000'000;
+
 struct MeshOptions {
   MeshSettings::Mesher mesher = MeshSettings::Mesher::automatic;
   double density = 1.0;  ///< > 0; 2 roughly doubles the elements along every length
-  std::size_t max_nodes = 2'000'000;  ///< the mesher stops with an InputError beyond this
+  std::size_t max_nodes = node_limit;  ///< the mesher stops with an InputError beyond this
 };
 
 /// A mesh that would pass the node limit, or a refinement that ran past its budget. An InputError, so
@@ -43,7 +47,7 @@ TriMesh mesh_cross_section(const CrossSection& section, const MeshOptions& optio
 /// flips inside each region then restore the Delaunay property.
 /// `marked` has one entry per triangle of `previous`. Throws MeshLimitError past `max_nodes`.
 TriMesh refine_mesh(const CrossSection& section, const TriMesh& previous, const std::vector<char>& marked,
-                    std::size_t max_nodes = 2'000'000);
+                    std::size_t max_nodes = node_limit);
 
 /// Uniform refinement: every triangle split into four through its edge midpoints. Keeps angles,
 /// grading, regions and surface tags; O(n), for very fine meshes.

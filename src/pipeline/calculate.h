@@ -24,7 +24,7 @@ struct CalculationOptions {
   bool adaptive = true;
   AccuracyTarget target;
   int max_levels = 14;
-  int max_nodes = 2'000'000;  ///< the documented node limit; refinement stops before exceeding it
+  int max_nodes = static_cast<int>(node_limit);  ///< refinement stops before exceeding it
   std::function<void(const std::string&)> progress;     ///< told of each stage, may be empty
 };
 

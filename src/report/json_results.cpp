@@ -1,6 +1,8 @@
 // Builds the JSON document of a calculation.
 #include "report/json_results.h"
 
+#include <nlohmann/json.hpp>
+
 namespace edgeflux {
 namespace {
 nlohmann::ordered_json located(const LocatedTemperature& t) {
@@ -11,7 +13,7 @@ const char* system_key(DimensionSystem s) {
 }
 }  // namespace
 
-nlohmann::ordered_json json_results(const CrossSection& section, const Calculation& calc) {
+std::string json_results(const CrossSection& section, const Calculation& calc) {
   nlohmann::ordered_json j;
   j["format"] = "edgeflux-results";
   j["format_version"] = 1;
@@ -120,7 +122,7 @@ nlohmann::ordered_json json_results(const CrossSection& section, const Calculati
   j["solver"] = {{"linear_solver", calc.heat_loss.info.solver}, {"unknowns", calc.heat_loss.info.n_unknowns}};
   j["timings_s"] = {{"mesh", calc.timings.mesh_seconds}, {"assemble", calc.heat_loss.info.assemble_seconds},
                     {"factorize", calc.heat_loss.info.factorize_seconds}, {"solve", calc.heat_loss.info.solve_seconds}};
-  return j;
+  return j.dump(2) + "\n";
 }
 
 }  // namespace edgeflux

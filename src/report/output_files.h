@@ -1,5 +1,5 @@
-// The files one `solve` writes besides the printed summary: built in memory first, their paths
-// checked, and only then written, so a bad path leaves nothing behind.
+// The files one `solve` writes besides the printed summary, built in memory (app/output_writer.h
+// checks their paths and writes them).
 #pragma once
 
 #include <string>
@@ -7,6 +7,7 @@
 
 #include "geometry/cross_section.h"
 #include "pipeline/calculate.h"
+#include "report/html_report.h"
 
 namespace edgeflux {
 
@@ -25,16 +26,9 @@ struct OutputFile {
   bool creates_folder = false;  ///< true for files in --svg-dir/--png-dir: that folder may be created
 };
 
-/// Builds every requested file in memory. Reads the detail file again (section.file) to embed
-/// and hash it in the report; throws InputError when it can no longer be read.
-std::vector<OutputFile> build_output_files(const CrossSection& section, const Calculation& calc, const OutputRequest& request);
-
-/// Throws InputError for the first path that cannot be written: a missing folder (unless
-/// creates_folder and its parent exists; it is then created on writing), a path that is a
-/// folder, or a folder without write permission. Writes nothing.
-void check_output_paths(const std::vector<OutputFile>& files);
-
-/// Creates the missing folders of creates_folder files, then writes each file with write_file_atomically.
-void write_output_files(const std::vector<OutputFile>& files);
+/// Builds every requested file in memory; the report embeds `provenance` (the input file's bytes,
+/// the time, the validation run), which the caller gathers.
+std::vector<OutputFile> build_output_files(const CrossSection& section, const Calculation& calc, const OutputRequest& request,
+                                           const ReportProvenance& provenance);
 
 }  // namespace edgeflux
