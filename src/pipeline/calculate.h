@@ -10,6 +10,7 @@
 #include "results/convergence.h"
 #include "results/field_results.h"
 #include "results/junction_results.h"
+#include "results/calculation.h"
 #include "results/run.h"
 #include "solver/thermal_problem.h"
 
@@ -26,22 +27,6 @@ struct CalculationOptions {
   int max_levels = 14;
   int max_nodes = static_cast<int>(node_limit);  ///< refinement stops before exceeding it
   std::function<void(const std::string&)> progress;     ///< told of each stage, may be empty
-};
-
-struct Timings {
-  double mesh_seconds = 0.0;
-  double solve_seconds = 0.0;  ///< assembly, factorisation and solves of both runs
-  double results_seconds = 0.0;
-};
-
-struct Calculation {
-  TriMesh mesh;
-  Run heat_loss;            ///< the surface resistances of the file (ISO 6946)
-  Run surface_temperature;  ///< interior Rsi replaced (ISO 13788): 0.25 opaque, 0.13 glazing
-  JunctionResults junction;
-  Convergence convergence;  ///< levels and error estimates (one level when not adaptive)
-  Timings timings;          ///< of the final level
-  double total_seconds = 0.0;
 };
 
 /// Solves both runs on a given mesh and reads off all results (no convergence data).

@@ -8,6 +8,7 @@
 
 #include "input/read_detail_file.h"
 #include "pipeline/calculate.h"
+#include "results/variant_summary.h"
 
 namespace edgeflux {
 
@@ -17,27 +18,6 @@ struct ParameterRange {
   double from = 0.0, to = 0.0;
   int steps = 2;
   std::vector<double> values() const;
-};
-
-/// What a consultant reads off one variant.
-struct VariantSummary {
-  std::string label;                  ///< file name or "name=value, ..."
-  std::string file;
-  ParameterOverrides parameters;      ///< the varied values (sweeps)
-  std::string title;
-  std::optional<double> coupling_2d;  ///< L2D, W/(m·K)
-  std::optional<double> coupling_2d_error;
-  std::vector<PsiValue> psi;
-  std::vector<double> psi_error;
-  std::optional<double> min_surface_temperature;  ///< °C
-  std::optional<double> temperature_factor;       ///< fRsi
-  std::optional<double> required_temperature_factor;
-  std::optional<bool> passes;
-  std::string governing_requirement;
-  int nodes = 0;
-  double seconds = 0.0;
-  std::vector<std::string> warnings;
-  std::string error;                  ///< non-empty when this variant could not be calculated
 };
 
 VariantSummary summarise(const std::string& label, const std::string& file, const CrossSection& section,

@@ -12,7 +12,7 @@
 
 #include "geometry/cross_section.h"
 #include "mesh/tri_mesh.h"
-#include "pipeline/calculate.h"
+#include "results/calculation.h"
 #include "report/field_quantities.h"
 #include "report/material_fills.h"
 #include "report/svg_support.h"

@@ -12,7 +12,6 @@
 #include "report/field_quantities.h"
 #include "report/material_fills.h"
 #include "report/svg_drawings.h"
-#include "solver/error_indicator.h"
 
 namespace edgeflux {
 
@@ -20,7 +19,7 @@ using namespace layout;
 
 Drawing heat_flux_drawing(const CrossSection& section, const Calculation& calc) {
   const TriMesh& mesh = calc.mesh;
-  const std::vector<Point> flux = triangle_heat_flux(mesh, calc.heat_loss.problem.triangle_conductivity, calc.heat_loss.temperature);
+  const std::vector<Point>& flux = calc.heat_loss.field.heat_flux;
   const Bounds b = section_bounds(mesh);
   const PaperFrame f = field_frame(b);
   const Box drawing = paper_box(f, b);

@@ -10,7 +10,7 @@
 #include <vector>
 
 #include "geometry/cross_section.h"
-#include "pipeline/calculate.h"
+#include "results/calculation.h"
 #include "report/svg_drawings.h"
 
 namespace edgeflux {

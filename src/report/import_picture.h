@@ -4,7 +4,7 @@
 
 #include <string>
 
-#include "pipeline/import_drawing.h"
+#include "input/drawing_import.h"
 
 namespace edgeflux {
 

@@ -6,7 +6,7 @@
 #include <vector>
 
 #include "geometry/cross_section.h"
-#include "pipeline/calculate.h"
+#include "results/calculation.h"
 #include "report/html_report.h"
 
 namespace edgeflux {

@@ -7,7 +7,7 @@
 #include <vector>
 
 #include "geometry/cross_section.h"
-#include "pipeline/calculate.h"
+#include "results/calculation.h"
 
 namespace edgeflux {
 

@@ -4,7 +4,7 @@
 #include <string>
 #include <vector>
 
-#include "pipeline/variants.h"
+#include "results/variant_summary.h"
 
 namespace edgeflux {
 

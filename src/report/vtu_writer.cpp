@@ -4,7 +4,6 @@
 #include <fmt/format.h>
 
 #include "report/field_quantities.h"
-#include "solver/error_indicator.h"
 
 namespace edgeflux {
 namespace {
@@ -19,7 +18,7 @@ std::string xml_comment_safe(std::string s) {
 
 std::string vtu_document(const CrossSection& section, const Calculation& calc) {
   const TriMesh& mesh = calc.mesh;
-  const std::vector<Point> flux = triangle_heat_flux(mesh, calc.heat_loss.problem.triangle_conductivity, calc.heat_loss.temperature);
+  const std::vector<Point>& flux = calc.heat_loss.field.heat_flux;
   std::string out;
   out += "<?xml version=\"1.0\"?>\n";
   out += fmt::format("<!-- edgeflux {}: {} -->\n", EDGEFLUX_VERSION, xml_comment_safe(section.title.empty() ? section.file : section.title));

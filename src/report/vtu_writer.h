@@ -4,7 +4,7 @@
 #include <string>
 
 #include "geometry/cross_section.h"
-#include "pipeline/calculate.h"
+#include "results/calculation.h"
 
 namespace edgeflux {
 

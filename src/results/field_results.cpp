@@ -11,6 +11,7 @@
 
 #include "solver/conduction_matrix.h"
 #include "solver/solve_temperatures.h"
+#include "solver/error_indicator.h"
 
 namespace edgeflux {
 
@@ -167,6 +168,7 @@ FieldResults evaluate_field(const CrossSection& section, const TriMesh& mesh, co
                             const std::vector<double>& temperature, const LoadCase& load) {
   FieldResults r;
   r.surface_heat_flow = surface_heat_flows(mesh, problem, temperature, load);
+  r.heat_flux = triangle_heat_flux(mesh, problem.triangle_conductivity, temperature);
   r.environments.resize(section.environments.size());
   for (std::size_t e = 0; e < section.environments.size(); ++e) r.environments[e].environment = e;
   double sum_abs = 0.0;

@@ -42,6 +42,7 @@ struct FieldResults {
   std::optional<double> coupling_2d;          ///< L2D, W/(m·K), with exactly two environments
   std::vector<ProbeReading> probes;
   LocatedTemperature coldest_node, warmest_node;
+  std::vector<Point> heat_flux;               ///< per triangle, q = −λ∇θ, W/m² (for drawings and VTK)
 };
 
 /// Heat flow into the section through each surface, W/m: the surface-resistance exchange for
