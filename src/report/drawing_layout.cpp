@@ -403,6 +403,14 @@ std::string section_overlay(const CrossSection& section, const TriMesh& mesh, co
   return out;
 }
 
+std::string field_legend(const Box& drawing, const PaperFrame& f, const std::vector<std::pair<double, std::string>>& band_colours,
+                         const std::vector<std::pair<double, std::string>>& ticks, const std::string& title,
+                         const std::string& subtitle, Box& extent) {
+  const double bar_height = std::max(std::min(drawing.y1 - drawing.y0 - 10, 120.0), 40.0);
+  std::string out = colour_bar({drawing.x1 + 8, drawing.y0 + 9}, bar_height, band_colours, ticks, title, subtitle, extent);
+  return out + scale_bar({drawing.x0, extent.y1 + 4}, f, extent);
+}
+
 Isotherm isotherm(const TriMesh& mesh, const PaperFrame& f, const std::vector<double>& T, double level) {
   Isotherm iso{level, {}};
   for (const std::vector<Point>& line : isotherm_lines(mesh, T, level).lines) {

@@ -16,6 +16,7 @@
 #include "report/field_quantities.h"
 #include "report/material_fills.h"
 #include "report/svg_support.h"
+#include "report/text_format.h"
 #include "results/isotherms.h"
 
 namespace edgeflux::layout {
@@ -46,11 +47,8 @@ Point unit(Point v);
 std::vector<Point> simplified(const std::vector<Point>& pts, bool closed);
 /// Okabe–Ito colours (colour-blind safe), by side: interior warm, exterior blue, others green/purple.
 std::string environment_colour(const CrossSection& section, std::size_t env);
-inline const char* side_name(Side s) { return s == Side::interior ? "interior" : s == Side::exterior ? "exterior" : "other"; }
 
 std::string length_text(double metres, const CrossSection& section);
-/// λ with the digits a designer writes: 0.035, 0.99, 2.50, 230.
-inline std::string conductivity_text(double v) { return fmt::format("{:.{}f}", v, v < 0.1 ? 3 : v < 10 ? 2 : 0); }
 
 inline std::string degrees(double v, int decimals) { return svg::label_number(v, decimals) + " °C"; }
 
@@ -112,6 +110,11 @@ std::string colour_bar(Point at, double height, const std::vector<std::pair<doub
                        Box& extent);
 bool segment_hits_box(Point a, Point b, const Box& box);
 std::string section_overlay(const CrossSection& section, const TriMesh& mesh, const PaperFrame& f);
+
+/// The colour bar beside a field drawing (box `drawing` on paper) and the scale bar below it.
+std::string field_legend(const Box& drawing, const PaperFrame& f, const std::vector<std::pair<double, std::string>>& band_colours,
+                         const std::vector<std::pair<double, std::string>>& ticks, const std::string& title,
+                         const std::string& subtitle, Box& extent);
 
 /// Isotherms of a nodal field at `level`, as paper polylines.
 struct Isotherm {

@@ -83,9 +83,7 @@ Drawing heat_flux_drawing(const CrossSection& section, const Calculation& calc) 
       if (u < -1e-9 || u > 1 + 1e-9) continue;
       ticks.push_back({u, q >= 1 ? fmt::format("{:.0f}", q) : fmt::format("{:.2g}", q)});
     }
-  const double bar_h = std::min(drawing.y1 - drawing.y0 - 10, 120.0);
-  body += colour_bar({drawing.x1 + 8, drawing.y0 + 9}, std::max(bar_h, 40.0), classes, ticks, "|q| [W/m²]", "logarithmic scale", extent);
-  body += scale_bar({drawing.x0, extent.y1 + 4}, f, extent);
+  body += field_legend(drawing, f, classes, ticks, "|q| [W/m²]", "logarithmic scale", extent);
 
   Drawing d;
   d.id = "heat-flux";

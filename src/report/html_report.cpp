@@ -10,6 +10,7 @@
 
 #include "core/sha256.h"
 #include "report/svg_support.h"
+#include "report/text_format.h"
 
 namespace edgeflux {
 namespace {
@@ -26,7 +27,6 @@ std::string signed_fixed(double v, int decimals) {
   return fmt::format("{:+.{}f}", v, decimals);
 }
 
-const char* side_name(Side s) { return s == Side::interior ? "interior" : s == Side::exterior ? "exterior" : "other"; }
 
 std::string user_point(const CrossSection& section, Point p) {
   return fmt::format("({}, {}) {}", fixed(p.x / section.metres_per_unit, 1), fixed(p.y / section.metres_per_unit, 1), escape(section.unit));
@@ -113,8 +113,6 @@ std::string plus_minus(const std::optional<ErrorEstimate>& e, int decimals) {
   return " <span class=\"pm\">± " + error_text(e->error, decimals) + "</span>";
 }
 
-/// λ with the digits a designer writes: 0.035, 0.99, 2.50, 230.
-std::string conductivity_text(double v) { return fmt::format("{:.{}f}", v, v < 0.1 ? 3 : v < 10 ? 2 : 0); }
 
 std::string climate_text(const Climate& c) {
   return fmt::format("{} °C and {} inside, {} °C outside", fixed(c.interior_temperature, 1),

@@ -4,18 +4,9 @@
 #include <fmt/format.h>
 
 #include "report/field_quantities.h"
+#include "report/text_format.h"
 
 namespace edgeflux {
-namespace {
-
-std::string csv_field(const std::string& s) {
-  if (s.find_first_of(",\"\r\n") == std::string::npos) return s;
-  std::string quoted = "\"";
-  for (char c : s) quoted += c == '"' ? std::string("\"\"") : std::string(1, c);
-  return quoted + "\"";
-}
-
-}  // namespace
 
 std::string surface_csv(const CrossSection& section, const Calculation& calc) {
   std::string out = "distance_m,x_m,y_m,temperature_c,environment,surface\n";

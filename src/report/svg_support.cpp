@@ -5,6 +5,7 @@
 
 #include <algorithm>
 #include <cmath>
+#include "report/text_format.h"
 
 namespace edgeflux::svg {
 
@@ -23,21 +24,7 @@ std::string num(double v) {
   return s;
 }
 
-std::string escape(std::string_view text) {
-  std::string out;
-  out.reserve(text.size());
-  for (char c : text) {
-    switch (c) {
-      case '&': out += "&amp;"; break;
-      case '<': out += "&lt;"; break;
-      case '>': out += "&gt;"; break;
-      case '"': out += "&quot;"; break;
-      case '\'': out += "&#39;"; break;
-      default: out += c;
-    }
-  }
-  return out;
-}
+std::string escape(std::string_view text) { return xml_escape(text); }
 
 double text_width(std::string_view text, double font_size) {
   double width = 0;

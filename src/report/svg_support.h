@@ -36,7 +36,7 @@ double standard_scale(double needed);
 
 /// A coordinate or length on paper: at most 2 decimals, no trailing zeros.
 std::string num(double v);
-/// Text made safe for XML character data and attribute values.
+/// Text made safe for XML character data and attribute values (xml_escape, report/text_format.h).
 std::string escape(std::string_view text);
 /// Estimated advance width of `text` in a sans-serif face at `font_size` (same unit), counting
 /// UTF-8 code points; generous, so boxes built from it rarely underestimate.

@@ -177,10 +177,7 @@ Drawing temperature_drawing(const CrossSection& section, const Calculation& calc
   for (int k = 0; k < n_bands; ++k) bands.push_back({(k + 1.0) / n_bands, band_colour(k)});
   for (double level = std::ceil(lo / step) * step; level <= hi + 1e-9; level += step)
     ticks.push_back({(level - lo) / (hi - lo), svg::label_number(level, decimals)});
-  const double bar_h = std::min(drawing.y1 - drawing.y0 - 10, 120.0);
-  body += colour_bar({drawing.x1 + 8, drawing.y0 + 9}, std::max(bar_h, 40.0), bands, ticks, "θ [°C]",
-                     fmt::format("bands {} K, isotherms {} K", num(band), num(step)), extent);
-  body += scale_bar({drawing.x0, extent.y1 + 4}, f, extent);
+  body += field_legend(drawing, f, bands, ticks, "θ [°C]", fmt::format("bands {} K, isotherms {} K", num(band), num(step)), extent);
 
   Drawing d;
   d.id = "temperature";

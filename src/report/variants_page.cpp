@@ -9,6 +9,7 @@
 #include <set>
 
 #include "physics/moisture_verdict.h"
+#include "report/text_format.h"
 
 namespace edgeflux {
 namespace {
@@ -17,26 +18,7 @@ const char* system_column(DimensionSystem s) {
   return s == DimensionSystem::internal ? "psi_internal" : s == DimensionSystem::overall_internal ? "psi_overall_internal" : "psi_external";
 }
 
-std::string csv_field(const std::string& text) {
-  if (text.find_first_of(",\"\n") == std::string::npos) return text;
-  std::string quoted = "\"";
-  for (char c : text) quoted += c == '"' ? std::string("\"\"") : std::string(1, c);
-  return quoted + "\"";
-}
 
-std::string escape(const std::string& text) {
-  std::string out;
-  for (char c : text) {
-    switch (c) {
-      case '&': out += "&amp;"; break;
-      case '<': out += "&lt;"; break;
-      case '>': out += "&gt;"; break;
-      case '"': out += "&quot;"; break;
-      default: out += c;
-    }
-  }
-  return out;
-}
 
 std::optional<double> psi_of(const VariantSummary& v, DimensionSystem s) {
   for (const PsiValue& p : v.psi)
@@ -86,7 +68,7 @@ std::string line_plot(const std::string& title, const std::string& x_label, cons
       "<svg xmlns=\"http://www.w3.org/2000/svg\" viewBox=\"0 0 {0} {1}\" width=\"{0}\" height=\"{1}\" role=\"img\" "
       "aria-label=\"{2}\"><rect width=\"100%\" height=\"100%\" fill=\"white\"/>"
       "<text x=\"{3}\" y=\"22\" font-size=\"15\" font-weight=\"600\">{2}</text>",
-      width, height, escape(title), left);
+      width, height, xml_escape(title), left);
   for (double t : ticks(x0, x1))
     svg += fmt::format("<line x1=\"{0:.1f}\" y1=\"{1}\" x2=\"{0:.1f}\" y2=\"{2}\" stroke=\"#ddd\"/><text x=\"{0:.1f}\" y=\"{3}\" "
                        "font-size=\"12\" text-anchor=\"middle\">{4:g}</text>",
@@ -98,13 +80,13 @@ std::string line_plot(const std::string& title, const std::string& x_label, cons
   svg += fmt::format("<rect x=\"{}\" y=\"{}\" width=\"{}\" height=\"{}\" fill=\"none\" stroke=\"#444\"/>", left, top,
                      width - left - right, height - top - bottom);
   svg += fmt::format("<text x=\"{}\" y=\"{}\" font-size=\"13\" text-anchor=\"middle\">{}</text>", (left + width - right) / 2,
-                     height - 12, escape(x_label));
+                     height - 12, xml_escape(x_label));
   svg += fmt::format("<text transform=\"translate(16 {}) rotate(-90)\" font-size=\"13\" text-anchor=\"middle\">{}</text>",
-                     (top + height - bottom) / 2, escape(y_label));
+                     (top + height - bottom) / 2, xml_escape(y_label));
   for (const auto& [value, label] : references)
     svg += fmt::format("<line x1=\"{0}\" y1=\"{1:.1f}\" x2=\"{2}\" y2=\"{1:.1f}\" stroke=\"#B00020\" stroke-dasharray=\"6 4\" "
                        "stroke-width=\"1.5\"/><text x=\"{3}\" y=\"{4:.1f}\" font-size=\"12\" fill=\"#B00020\">{5}</text>",
-                       left, sy(value), width - right, width - right + 6, sy(value) + 4, escape(label));
+                       left, sy(value), width - right, width - right + 6, sy(value) + 4, xml_escape(label));
   for (std::size_t i = 0; i < series.size(); ++i) {
     const char* colour = palette[i % std::size(palette)];
     std::string path;
@@ -113,7 +95,7 @@ std::string line_plot(const std::string& title, const std::string& x_label, cons
     for (auto [x, y] : series[i].points)
       svg += fmt::format("<circle cx=\"{:.1f}\" cy=\"{:.1f}\" r=\"3.5\" fill=\"{}\"/>", sx(x), sy(y), colour);
     svg += fmt::format("<text x=\"{}\" y=\"{}\" font-size=\"12\" fill=\"{}\">{}</text>", width - right + 6,
-                       top + 14 + 16 * i + (references.empty() ? 0 : 0), colour, escape(series[i].name));
+                       top + 14 + 16 * i + (references.empty() ? 0 : 0), colour, xml_escape(series[i].name));
   }
   return svg + "</svg>";
 }
@@ -158,14 +140,14 @@ std::string variants_page(const std::string& heading, const std::vector<VariantS
       "@media print{{body{{margin:1cm}}figure{{break-inside:avoid}}}}</style></head><body><h1>{0}</h1>"
       "<p>edgeflux {1}. ψ in W/(m·K) with the estimated discretisation error; fRsi from the surface-temperature run "
       "(ISO 13788: interior Rsi 0.25 m²K/W).</p>",
-      escape(heading), EDGEFLUX_VERSION);
+      xml_escape(heading), EDGEFLUX_VERSION);
   html += "<table><tr><th class=\"l\">variant</th>";
   for (DimensionSystem s : systems) html += fmt::format("<th>ψ {}</th>", dimension_system_name(s));
   html += "<th>L2D</th><th>θsi,min [°C]</th><th>fRsi</th><th>required</th><th>verdict</th><th>nodes</th></tr>";
   for (const VariantSummary& v : variants) {
-    html += fmt::format("<tr><td class=\"l\">{}</td>", escape(v.label));
+    html += fmt::format("<tr><td class=\"l\">{}</td>", xml_escape(v.label));
     if (!v.error.empty()) {
-      html += fmt::format("<td class=\"l fail\" colspan=\"{}\">not calculated: {}</td></tr>", systems.size() + 6, escape(v.error));
+      html += fmt::format("<td class=\"l fail\" colspan=\"{}\">not calculated: {}</td></tr>", systems.size() + 6, xml_escape(v.error));
       continue;
     }
     for (DimensionSystem s : systems) {
@@ -217,7 +199,7 @@ std::string variants_page(const std::string& heading, const std::vector<VariantS
     html += "<figure>" + line_plot("Temperature factor fRsi", x_name, "fRsi [–]", frsi_series, limits) + "</figure>";
   }
   html += "<div class=\"caution\"><p><strong>Cautions</strong></p><ul>";
-  for (const std::string& c : standard_cautions()) html += "<li>" + escape(c) + "</li>";
+  for (const std::string& c : standard_cautions()) html += "<li>" + xml_escape(c) + "</li>";
   html += "</ul></div></body></html>\n";
   return html;
 }

@@ -1,0 +1,38 @@
+#include "report/text_format.h"
+
+#include <fmt/format.h>
+
+namespace edgeflux {
+
+std::string xml_escape(std::string_view text) {
+  std::string out;
+  out.reserve(text.size());
+  for (char c : text) {
+    switch (c) {
+      case '&': out += "&amp;"; break;
+      case '<': out += "&lt;"; break;
+      case '>': out += "&gt;"; break;
+      case '"': out += "&quot;"; break;
+      case '\'': out += "&#39;"; break;
+      default: out += c;
+    }
+  }
+  return out;
+}
+
+std::string csv_field(std::string_view text) {
+  if (text.find_first_of(",\"\r\n") == std::string_view::npos) return std::string(text);
+  std::string quoted = "\"";
+  for (char c : text) quoted += c == '"' ? std::string("\"\"") : std::string(1, c);
+  return quoted + "\"";
+}
+
+const char* side_name(Side side) {
+  return side == Side::interior ? "interior" : side == Side::exterior ? "exterior" : "other";
+}
+
+std::string conductivity_text(double conductivity) {
+  return fmt::format("{:.{}f}", conductivity, conductivity < 0.1 ? 3 : conductivity < 10 ? 2 : 0);
+}
+
+}  // namespace edgeflux
