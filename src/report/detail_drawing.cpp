@@ -22,7 +22,7 @@ Drawing detail_drawing(const CrossSection& section, const Calculation& calc) {
   const TriMesh& mesh = calc.mesh;
   const Bounds b = section_bounds(mesh);
   PaperFrame f = fit_frame(b, max_width - 85.0, 175.0);
-  const svg::PointLocator locator(mesh);
+  const TriangleLocator locator(mesh);
   const SectionHitTest hit{f, locator};
   const auto fills = material_fills(section);
   const Box drawing = paper_box(f, b);

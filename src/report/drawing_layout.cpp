@@ -126,7 +126,7 @@ std::string outline_d(const PaperFrame& f, const TriMesh& mesh) {
 /// Tests whether paper boxes overlap the section, by sampling points in the box.
 
 /// Direction (paper) away from the section at a boundary point, found by probing both normals.
-Point outward_normal(const PaperFrame& f, const svg::PointLocator& locator, Point paper_at, Point paper_along) {
+Point outward_normal(const PaperFrame& f, const TriangleLocator& locator, Point paper_at, Point paper_along) {
   const Point n{-paper_along.y, paper_along.x};
   for (double probe : {0.6, 1.5, 3.0}) {
     const bool plus_inside = locator.triangle_at(to_world(f, paper_at + probe * n)) >= 0;

@@ -12,6 +12,7 @@
 
 #include "geometry/cross_section.h"
 #include "mesh/tri_mesh.h"
+#include "mesh/triangle_locator.h"
 #include "results/calculation.h"
 #include "report/field_quantities.h"
 #include "report/material_fills.h"
@@ -60,7 +61,7 @@ std::string outline_d(const PaperFrame& f, const TriMesh& mesh);
 /// Tests whether paper boxes overlap the section, by sampling points in the box.
 struct SectionHitTest {
   const PaperFrame& frame;
-  const svg::PointLocator& locator;
+  const TriangleLocator& locator;
   bool hits(const Box& b) const {
     for (int i = 0; i <= 6; ++i)
       for (int j = 0; j <= 3; ++j) {
@@ -72,7 +73,7 @@ struct SectionHitTest {
 };
 
 /// Direction (paper) away from the section at a boundary point, found by probing both normals.
-Point outward_normal(const PaperFrame& f, const svg::PointLocator& locator, Point paper_at, Point paper_along);
+Point outward_normal(const PaperFrame& f, const TriangleLocator& locator, Point paper_at, Point paper_along);
 /// Places a box of size w × h near `anchor`, away from the section along `outward`, sliding along
 /// `along` when the first places are taken. Returns the box and the anchor point it refers to.
 struct Placement {

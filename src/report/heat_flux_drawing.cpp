@@ -57,7 +57,7 @@ Drawing heat_flux_drawing(const CrossSection& section, const Calculation& calc) 
   body += section_overlay(section, mesh, f);
 
   // Direction arrows on a regular paper grid, all the same length: the colour gives the size.
-  const svg::PointLocator locator(mesh);
+  const TriangleLocator locator(mesh);
   const double spacing = 5.0, half = 1.6;
   std::string arrows;
   for (double y = drawing.y0 + spacing / 2; y < drawing.y1; y += spacing)

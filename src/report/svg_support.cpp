@@ -63,50 +63,6 @@ bool Occupied::is_free(const Box& b) const {
   return std::none_of(boxes_.begin(), boxes_.end(), [&](const Box& o) { return o.overlaps(b); });
 }
 
-PointLocator::PointLocator(const TriMesh& mesh) : mesh_(mesh) {
-  if (mesh.points.empty()) return;
-  double x1 = mesh.points[0].x, y1 = mesh.points[0].y;
-  x0_ = x1, y0_ = y1;
-  for (const Point& p : mesh.points) {
-    x0_ = std::min(x0_, p.x), y0_ = std::min(y0_, p.y);
-    x1 = std::max(x1, p.x), y1 = std::max(y1, p.y);
-  }
-  const double area = std::max((x1 - x0_) * (y1 - y0_), 1e-12);
-  cell_ = std::sqrt(area / std::max<double>(1, mesh.triangles.size() / 2.0));
-  nx_ = std::max(1, static_cast<int>(std::ceil((x1 - x0_) / cell_)) + 1);
-  ny_ = std::max(1, static_cast<int>(std::ceil((y1 - y0_) / cell_)) + 1);
-  buckets_.resize(static_cast<std::size_t>(nx_) * ny_);
-  for (std::size_t t = 0; t < mesh.triangles.size(); ++t) {
-    const auto& tri = mesh.triangles[t];
-    double lo_x = 1e300, lo_y = 1e300, hi_x = -1e300, hi_y = -1e300;
-    for (int v : tri) {
-      lo_x = std::min(lo_x, mesh.points[v].x), hi_x = std::max(hi_x, mesh.points[v].x);
-      lo_y = std::min(lo_y, mesh.points[v].y), hi_y = std::max(hi_y, mesh.points[v].y);
-    }
-    const int i0 = std::clamp(static_cast<int>((lo_x - x0_) / cell_), 0, nx_ - 1), i1 = std::clamp(static_cast<int>((hi_x - x0_) / cell_), 0, nx_ - 1);
-    const int j0 = std::clamp(static_cast<int>((lo_y - y0_) / cell_), 0, ny_ - 1), j1 = std::clamp(static_cast<int>((hi_y - y0_) / cell_), 0, ny_ - 1);
-    for (int j = j0; j <= j1; ++j)
-      for (int i = i0; i <= i1; ++i) buckets_[static_cast<std::size_t>(j) * nx_ + i].push_back(static_cast<int>(t));
-  }
-}
-
-int PointLocator::triangle_at(Point p) const {
-  if (buckets_.empty()) return -1;
-  const int i = static_cast<int>(std::floor((p.x - x0_) / cell_)), j = static_cast<int>(std::floor((p.y - y0_) / cell_));
-  if (i < 0 || j < 0 || i >= nx_ || j >= ny_) return -1;
-  int best = -1;
-  double best_worst = -1e-9;
-  for (int t : buckets_[static_cast<std::size_t>(j) * nx_ + i]) {
-    const auto& tri = mesh_.triangles[t];
-    const Point a = mesh_.points[tri[0]], b = mesh_.points[tri[1]], c = mesh_.points[tri[2]];
-    const double area = cross(b - a, c - a);
-    const double l0 = cross(b - p, c - p) / area, l1 = cross(c - p, a - p) / area, l2 = 1.0 - l0 - l1;
-    const double worst = std::min({l0, l1, l2});
-    if (worst > best_worst) best_worst = worst, best = t;
-  }
-  return best;
-}
-
 std::string path_d(const PaperFrame& f, const std::vector<Point>& world, bool closed) {
   std::string d;
   for (std::size_t i = 0; i < world.size(); ++i) {

@@ -1,5 +1,5 @@
 // Small helpers the SVG drawings share: a world-to-paper frame at a drawing scale, number and
-// text formatting, a text-size estimate, a register of occupied label boxes and a point locator.
+// text formatting, a text-size estimate, and a register of occupied label boxes.
 #pragma once
 
 #include <string>
@@ -55,19 +55,6 @@ class Occupied {
   const std::vector<Box>& boxes() const { return boxes_; }
  private:
   std::vector<Box> boxes_;
-};
-
-/// Finds the triangle of a mesh containing a point, through a uniform bucket grid.
-class PointLocator {
- public:
-  explicit PointLocator(const TriMesh& mesh);
-  /// Index of the triangle containing p (tolerant of points on edges), or −1 outside the mesh.
-  int triangle_at(Point p) const;
- private:
-  const TriMesh& mesh_;
-  double x0_ = 0, y0_ = 0, cell_ = 1;
-  int nx_ = 1, ny_ = 1;
-  std::vector<std::vector<int>> buckets_;
 };
 
 /// The opening <svg> tag of a standalone drawing: width and height in mm, viewBox in mm, the

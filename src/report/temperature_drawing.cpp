@@ -26,7 +26,7 @@ Drawing temperature_drawing(const CrossSection& section, const Calculation& calc
   const Box drawing = paper_box(f, b);
   Box extent = drawing;
   Occupied occupied;
-  const svg::PointLocator locator(mesh);
+  const TriangleLocator locator(mesh);
   const SectionHitTest hit{f, locator};
 
   const auto [lo_it, hi_it] = std::minmax_element(T.begin(), T.end());
