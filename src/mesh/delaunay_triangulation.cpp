@@ -36,7 +36,7 @@
 #include "geometry/planar_subdivision.h"
 #include "geometry/polygon.h"
 #include "mesh/mesh_cross_section.h"
-#include "mesh/raw_triangulation.h"
+#include "mesh/delaunay_triangulation.h"
 #include "mesh/size_field.h"
 
 namespace edgeflux {

@@ -10,7 +10,7 @@
 #include "geometry/planar_subdivision.h"
 #include "geometry/polygon.h"
 #include "mesh/mesh_cross_section.h"
-#include "mesh/raw_triangulation.h"
+#include "mesh/grid_triangulation.h"
 
 namespace edgeflux {
 namespace {

@@ -10,7 +10,10 @@
 
 #include "geometry/polygon.h"
 #include "mesh/mesh_edges.h"
+#include "mesh/delaunay_triangulation.h"
+#include "mesh/grid_triangulation.h"
 #include "mesh/raw_triangulation.h"
+#include "mesh/refine_mesh.h"
 
 namespace edgeflux {
 namespace {

@@ -41,18 +41,6 @@ TriMesh mesh_cross_section(const CrossSection& section, const PlanarSubdivision&
 /// The same in one call: builds the subdivision first (its warnings are dropped).
 TriMesh mesh_cross_section(const CrossSection& section, const MeshOptions& options);
 
-/// A finer mesh of the same section: every edge of a marked triangle is halved (its midpoint
-/// becomes a node), and neighbours are bisected across their longest edges until the mesh is
-/// conforming again (longest-edge bisection: angles stay at least half the starting mesh's); edge
-/// flips inside each region then restore the Delaunay property.
-/// `marked` has one entry per triangle of `previous`. Throws MeshLimitError past `max_nodes`.
-TriMesh refine_mesh(const CrossSection& section, const TriMesh& previous, const std::vector<char>& marked,
-                    std::size_t max_nodes = node_limit);
-
-/// Uniform refinement: every triangle split into four through its edge midpoints. Keeps angles,
-/// grading, regions and surface tags; O(n), for very fine meshes.
-TriMesh subdivide_mesh(const TriMesh& mesh);
-
 /// True when every region edge and surface segment is parallel to an axis, so the structured
 /// right-triangle grid (the five-point finite-difference stencil) can represent the section exactly.
 bool is_rectilinear(const CrossSection& section);

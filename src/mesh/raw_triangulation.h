@@ -26,13 +26,4 @@ struct RawTriangulation {
   std::vector<int> probe_nodes;               ///< per probe, its point index, or -1
 };
 
-struct CrossSection;
-struct MeshOptions;
-struct PlanarSubdivision;
-
-RawTriangulation grid_triangulation(const CrossSection& section, const PlanarSubdivision& subdivision,
-                                    const MeshOptions& options);
-RawTriangulation delaunay_triangulation(const CrossSection& section, const PlanarSubdivision& subdivision,
-                                        const MeshOptions& options);
-
 }  // namespace edgeflux

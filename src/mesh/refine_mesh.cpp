@@ -19,6 +19,7 @@
 #include "mesh/mesh_cross_section.h"
 #include "mesh/delaunay_flips.h"
 #include "mesh/mesh_edges.h"
+#include "mesh/refine_mesh.h"
 
 namespace edgeflux {
 namespace {

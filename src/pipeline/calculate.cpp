@@ -13,6 +13,7 @@
 #include "geometry/planar_subdivision.h"
 #include "solver/error_indicator.h"
 #include "solver/solve_temperatures.h"
+#include "mesh/refine_mesh.h"
 
 namespace edgeflux {
 namespace {

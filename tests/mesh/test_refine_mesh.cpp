@@ -13,6 +13,7 @@
 #include "../test_support.h"
 #include "mesh/mesh_cross_section.h"
 #include "mesh/mesh_edges.h"
+#include "mesh/refine_mesh.h"
 
 using namespace edgeflux;
 
