@@ -16,6 +16,7 @@
 #include <vector>
 
 #include "../support/run_program.h"
+#include "../support/fixtures.h"
 #include "../test_support.h"
 
 namespace fs = std::filesystem;
@@ -168,25 +169,7 @@ void run_manifest(const fs::path& folder_of_files, const fs::path& manifest, boo
   fs::remove_all(scratch);
 }
 
-std::string good_wall() {
-  return edgeflux::test::detail_xml(R"(
-  <materials>
-    <material id="brick" conductivity="0.8" source="test value"/>
-    <material id="eps" conductivity="0.035" source="test value"/>
-  </materials>
-  <regions>
-    <rectangle name="brick" material="brick" from="0,0" to="200,1000"/>
-    <rectangle name="insulation" material="eps" from="200,0" to="300,1000"/>
-  </regions>
-  <environments>
-    <environment id="in" temperature="20" side="interior"/>
-    <environment id="out" temperature="-5" side="exterior"/>
-  </environments>
-  <boundaries>
-    <surface name="inner face" environment="in" resistance="rsi-horizontal" path="0,1000 0,0"/>
-    <surface name="outer face" environment="out" resistance="rse" path="300,0 300,1000"/>
-  </boundaries>)");
-}
+std::string good_wall() { return edgeflux::test::detail_xml(edgeflux::test::two_layer_wall_body()); }
 
 std::string replaced(std::string text, const std::string& from, const std::string& to) {
   const auto at = text.find(from);

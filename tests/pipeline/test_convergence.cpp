@@ -7,6 +7,7 @@
 #include <sys/wait.h>
 
 #include "../support/run_program.h"
+#include "../support/fixtures.h"
 #include "../test_support.h"
 #include "validation/iso10211_conformity.h"
 
@@ -62,14 +63,7 @@ TEST_CASE("Case 2: the heat-flow error bar contains the difference to the conver
 }
 
 TEST_CASE("external corner: the error bar of S contains the difference to the fine-mesh 0.5587 ± 0.0003") {
-  const std::string text = R"(<edgeflux-detail format="1" units="m">
-  <materials><material id="m" conductivity="1" source="test value"/></materials>
-  <regions><polygon material="m" points="0,0 1.5,0 1.5,0.25 0.25,0.25 0.25,1.5 0,1.5"/></regions>
-  <environments><environment id="warm" temperature="1"/><environment id="cold" temperature="0"/></environments>
-  <boundaries>
-    <fixed-temperature environment="warm" path="1.5,0.25 0.25,0.25 0.25,1.5"/>
-    <fixed-temperature environment="cold" path="0,1.5 0,0 1.5,0"/>
-  </boundaries></edgeflux-detail>)";
+  const std::string text = test::isothermal_corner(1);
   for (double target : {1e-3, 1e-4}) {
     CalculationOptions options;
     options.target.coupling_relative = target;

@@ -4,6 +4,7 @@
 
 #include <cmath>
 
+#include "../support/fixtures.h"
 #include "../test_support.h"
 #include "physics/layer_stack.h"
 
@@ -12,24 +13,9 @@ using namespace edgeflux;
 namespace {
 // A plain two-layer wall 3 m high, cut at y = 0 and y = 3 m into two "flanking elements" that
 // meet at y = 1.5 m, where nothing happens: ψ must vanish (ISO 14683 definition, exact).
+/// 240 mm block (λ 0.45) and 160 mm mineral wool (λ 0.037), 3 m high, 20 °C inside, −10 °C outside.
 std::string plain_wall(const std::string& extra) {
-  return test::detail_xml(R"(
-  <materials>
-    <material id="block" conductivity="0.45" source="test value"/>
-    <material id="mw" conductivity="0.037" source="test value"/>
-  </materials>
-  <regions>
-    <rectangle material="block" from="0,0" to="240,3000"/>
-    <rectangle material="mw" from="240,0" to="400,3000"/>
-  </regions>
-  <environments>
-    <environment id="in" temperature="20" side="interior"/>
-    <environment id="out" temperature="-10" side="exterior"/>
-  </environments>
-  <boundaries>
-    <surface name="inside" environment="in" resistance="rsi-horizontal" path="0,3000 0,0"/>
-    <surface name="outside" environment="out" resistance="rse" path="400,0 400,3000"/>
-  </boundaries>)" + extra);
+  return test::layered_wall({{"block", 0.45, 240}, {"mw", 0.037, 160}}, 3000, 20, -10, extra);
 }
 }  // namespace
 
@@ -71,14 +57,7 @@ TEST_CASE("plain wall: fRsi = 1 − 0.25·U with U computed with Rsi = 0.25, to 
 TEST_CASE("external corner with isothermal faces: conductance λ(a/t + b/t + S), S near 0.5587 and the textbook 0.54") {
   // L-shaped homogeneous wall, thickness t = 0.25 m, legs a = b = 1.25 m measured from the inner
   // corner, inner faces at 1 °C, outer faces at 0 °C, leg ends adiabatic.
-  const std::string text = R"(<edgeflux-detail format="1" units="m">
-  <materials><material id="m" conductivity="1.3" source="test value"/></materials>
-  <regions><polygon material="m" points="0,0 1.5,0 1.5,0.25 0.25,0.25 0.25,1.5 0,1.5"/></regions>
-  <environments><environment id="warm" temperature="1"/><environment id="cold" temperature="0"/></environments>
-  <boundaries>
-    <fixed-temperature environment="warm" path="1.5,0.25 0.25,0.25 0.25,1.5"/>
-    <fixed-temperature environment="cold" path="0,1.5 0,0 1.5,0"/>
-  </boundaries></edgeflux-detail>)";
+  const std::string text = test::isothermal_corner(1.3);
   const Calculation calc = calculate(parse_detail_text(text, "corner.xml"), {});
   const double conductance = calc.heat_loss.field.environments[0].heat_flow / 1.3;  // per unit λ and ΔT
   const double shape = conductance - 1.25 / 0.25 - 1.25 / 0.25;

@@ -4,6 +4,7 @@
 
 #include <cmath>
 
+#include "../support/fixtures.h"
 #include "../test_support.h"
 #include "input/read_detail_file.h"
 #include "solver/solve_temperatures.h"
@@ -13,25 +14,8 @@ using namespace edgeflux;
 namespace {
 // Three layers, 1 m high, inside on the left. Layer values are arbitrary: the check is exact
 // algebra (ISO 6946 clause 6: Φ = ΔT / (Rsi + Σ d/λ + Rse) for a plane element).
-const std::string layered_wall = test::detail_xml(R"(
-  <materials>
-    <material id="plaster" conductivity="0.7" source="test value"/>
-    <material id="masonry" conductivity="0.99" source="test value"/>
-    <material id="insulation" conductivity="0.035" source="test value"/>
-  </materials>
-  <regions>
-    <rectangle material="plaster" from="0,0" to="15,1000"/>
-    <rectangle material="masonry" from="15,0" to="190,1000"/>
-    <rectangle material="insulation" from="190,0" to="350,1000"/>
-  </regions>
-  <environments>
-    <environment id="in" temperature="20" side="interior"/>
-    <environment id="out" temperature="-5" side="exterior"/>
-  </environments>
-  <boundaries>
-    <surface environment="in" resistance="rsi-horizontal" path="0,1000 0,0"/>
-    <surface environment="out" resistance="rse" path="350,0 350,1000"/>
-  </boundaries>
+const std::string layered_wall = test::layered_wall(
+    {{"plaster", 0.7, 15}, {"masonry", 0.99, 175}, {"insulation", 0.035, 160}}, 1000, 20, -5, R"(
   <probes>
     <probe name="x0" at="0,500"/> <probe name="x15" at="15,300"/> <probe name="x100" at="100,700"/>
     <probe name="x190" at="190,500"/> <probe name="x270" at="270,100"/> <probe name="x350" at="350,900"/>
