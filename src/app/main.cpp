@@ -204,7 +204,7 @@ int main(int argc, char** argv) {
   solve_cmd->add_option("detail", solve.detail_file, "Detail file (XML, see docs/detail-format.md)")->required();
   solve_cmd->add_option("--json", solve.json_file, "Also write the results as JSON to this file");
   solve_cmd->add_option("--density", solve.density, "Mesh density factor (overrides the file; 2 ≈ twice the elements per length)")
-      ->check(CLI::Range(0.01, 64.0));
+      ->check(CLI::Range(MeshSettings::min_density, MeshSettings::max_density));
   solve_cmd->add_option("--mesher", solve.mesher, "Mesher: automatic, grid (rectilinear sections) or delaunay")
       ->check(CLI::IsMember({"automatic", "grid", "delaunay"}));
   solve_cmd->add_option("--solver", solve.solver, "Linear solver: cholesky (default), ldlt or cg")

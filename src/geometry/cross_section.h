@@ -104,6 +104,9 @@ struct Parameter {
 };
 
 struct MeshSettings {
+  /// The density factors accepted from a file or the command line: below 0.01 a mesh could not
+  /// follow the section, above 64 the first mesh alone would pass the node limit.
+  static constexpr double min_density = 0.01, max_density = 64.0;
   enum class Mesher { automatic, grid, delaunay };
   Mesher mesher = Mesher::automatic;
   double density = 1.0;  ///< multiplies the number of elements along every length

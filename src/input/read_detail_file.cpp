@@ -864,8 +864,9 @@ class Reader {
     allow_attributes(e, {"density", "mesher"});
     if (e->Attribute("density")) {
       section_.mesh.density = required_number(e, "density");
-      if (!(section_.mesh.density > 0.0) || section_.mesh.density > 64.0)
-        throw_input_error(where(e), "<mesh>", fmt::format("density {} is outside (0, 64]", section_.mesh.density),
+      if (!(section_.mesh.density >= MeshSettings::min_density && section_.mesh.density <= MeshSettings::max_density))
+        throw_input_error(where(e), "<mesh>", fmt::format("density {} is outside [{}, {}]", section_.mesh.density,
+                                                          MeshSettings::min_density, MeshSettings::max_density),
                           "use 1 for the default mesh, 2 for about twice the elements along every length");
     }
     const std::string mesher = optional_text(e, "mesher", "automatic");

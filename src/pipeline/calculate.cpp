@@ -165,87 +165,75 @@ Calculation calculate_on_mesh(const CrossSection& section, TriMesh mesh, const C
   return calc;
 }
 
-Calculation calculate(const CrossSection& section, const CalculationOptions& options) {
-  auto tell = [&](const std::string& stage) { if (options.progress) options.progress(stage); };
-  const auto overall = std::chrono::steady_clock::now();
-  prepare_process_memory();
+namespace {
+
+/// The mesh settings of this run, resolved once: the command line's overrides over the file's.
+MeshOptions resolved_mesh_options(const CrossSection& section, const CalculationOptions& options) {
   MeshOptions mesh_options;
   mesh_options.density = options.density.value_or(section.mesh.density);
   mesh_options.mesher = options.mesher.value_or(section.mesh.mesher);
   mesh_options.max_nodes = static_cast<std::size_t>(options.max_nodes);
-  const bool grid = mesh_options.mesher == MeshSettings::Mesher::grid;
+  return mesh_options;
+}
 
-  Convergence convergence;
-  convergence.adaptive = options.adaptive;
-  convergence.target = options.target;
-  auto start = std::chrono::steady_clock::now();
-  const PlanarSubdivision subdivision = planar_subdivision(section);
-  TriMesh mesh = mesh_cross_section(section, subdivision, mesh_options);
-  double mesh_seconds = seconds_since(start);
-  const std::optional<Point> jump = fixed_temperature_jump(section, mesh);
-  convergence.singular_heat_flow = jump.has_value();
-  Calculation calc;
-  for (int level = 0;; ++level) {
-    prepare_process_memory();  // huge pages for what the heap gained in the last level
-    if (mesh.n_points() > options.max_nodes)
-      throw_input_error({section.file, 0}, "mesh",
-                        fmt::format("{} nodes exceed the limit of {}", mesh.n_points(), options.max_nodes),
-                        "lower the density or the accuracy target");
-    const auto level_start = std::chrono::steady_clock::now();
-    calc = calculate_on_mesh(section, std::move(mesh), options);
-    require_physical_field(section, calc);
-    calc.timings.mesh_seconds = mesh_seconds;
-    convergence.levels.push_back(level_record(calc, mesh_seconds + seconds_since(level_start)));
-    estimate_errors(convergence);
-    {
-      std::string line = fmt::format("level {}: {} nodes", level + 1, calc.mesh.n_points());
-      if (convergence.coupling_2d)
-        line += fmt::format(", L2D = {:.5f} ± {:.5f} W/(m·K)", convergence.coupling_2d->value, convergence.coupling_2d->error);
-      if (convergence.min_surface_temperature)
-        line += fmt::format(", θsi,min ± {:.4f} K", convergence.min_surface_temperature->error);
-      tell(line);
-    }
-    if (!options.adaptive) {
-      convergence.stop_reason = "fixed mesh (no refinement asked for)";
-      break;
-    }
-    if (meets_target(convergence)) {
-      convergence.target_met = true;
-      convergence.stop_reason = "target accuracy reached";
-      break;
-    }
-    if (level + 1 >= options.max_levels) {
-      convergence.stop_reason = fmt::format("stopped after {} levels before reaching the target", options.max_levels);
-      break;
-    }
-    // Refine: adaptively on Delaunay meshes; a grid refines everywhere (density × 1.5). Where the
-    // heat flux is singular the indicator would spend every new node at the singular point and
-    // leave the temperatures elsewhere unchanged level to level, which hides their error: there
-    // every triangle is split into four instead, so the estimates see the whole field converge.
-    start = std::chrono::steady_clock::now();
-    if (grid) {
-      mesh_options.density *= 1.5;
-      mesh = mesh_cross_section(section, subdivision, mesh_options);
-    } else if (convergence.singular_heat_flow) {
-      mesh = subdivide_mesh(calc.mesh);
-    } else {
-      // A refined mesh past the node limit ends the refinement, not the run:
-      // the levels so far carry their error bars, and the warning says why it stopped.
-      try {
-        mesh = refine_mesh(section, calc.mesh, mark_for_refinement(calc), static_cast<std::size_t>(options.max_nodes));
-      } catch (const MeshLimitError& e) {
-        convergence.stop_reason = "stopped before reaching the target: " + e.reason();
-        break;
-      }
-    }
-    mesh_seconds = seconds_since(start);
-    if (mesh.n_points() > options.max_nodes) {
-      convergence.stop_reason = fmt::format("stopped before reaching the target: the next mesh would exceed the "
-                                            "limit of {} nodes", options.max_nodes);
-      break;
+/// The progress line of a solved level.
+std::string level_line(int level, const Calculation& calc, const Convergence& convergence) {
+  std::string line = fmt::format("level {}: {} nodes", level + 1, calc.mesh.n_points());
+  if (convergence.coupling_2d)
+    line += fmt::format(", L2D = {:.5f} ± {:.5f} W/(m·K)", convergence.coupling_2d->value, convergence.coupling_2d->error);
+  if (convergence.min_surface_temperature)
+    line += fmt::format(", θsi,min ± {:.4f} K", convergence.min_surface_temperature->error);
+  return line;
+}
+
+/// Why the refinement ends after this level (setting target_met when the target is reached), or
+/// nothing when it goes on.
+std::optional<std::string> reason_to_stop(Convergence& convergence, const CalculationOptions& options, int level) {
+  if (!options.adaptive) return "fixed mesh (no refinement asked for)";
+  if (meets_target(convergence)) {
+    convergence.target_met = true;
+    return "target accuracy reached";
+  }
+  if (level + 1 >= options.max_levels)
+    return fmt::format("stopped after {} levels before reaching the target", options.max_levels);
+  return std::nullopt;
+}
+
+/// The next, finer mesh, or why there is none (a mesh past the node limit ends the refinement,
+/// not the run: the levels so far carry their error bars). Adaptively on Delaunay meshes; a grid
+/// refines everywhere (density × 1.5). Where the heat flux is singular the indicator would spend
+/// every new node at the singular point and leave the temperatures elsewhere unchanged level to
+/// level, which hides their error: there every triangle is split into four instead, so the
+/// estimates see the whole field converge.
+struct NextMesh {
+  std::optional<TriMesh> mesh;
+  std::string stop_reason;  ///< when there is no mesh
+};
+NextMesh next_mesh(const CrossSection& section, const PlanarSubdivision& subdivision, const Calculation& calc,
+                   const Convergence& convergence, const CalculationOptions& options, MeshOptions& mesh_options) {
+  TriMesh mesh;
+  if (mesh_options.mesher == MeshSettings::Mesher::grid) {
+    mesh_options.density *= 1.5;
+    mesh = mesh_cross_section(section, subdivision, mesh_options);
+  } else if (convergence.singular_heat_flow) {
+    mesh = subdivide_mesh(calc.mesh);
+  } else {
+    try {
+      mesh = refine_mesh(section, calc.mesh, mark_for_refinement(calc), static_cast<std::size_t>(options.max_nodes));
+    } catch (const MeshLimitError& e) {
+      return {std::nullopt, "stopped before reaching the target: " + e.reason()};
     }
   }
-  calc.convergence = std::move(convergence);
+  if (mesh.n_points() > options.max_nodes)
+    return {std::nullopt, fmt::format("stopped before reaching the target: the next mesh would exceed the limit of {} nodes",
+                                      options.max_nodes)};
+  return {std::move(mesh), ""};
+}
+
+/// The warnings of the whole run: what the reader and the geometry stage noticed about the drawing
+/// first, then a singular heat flux and a target not reached.
+void add_run_warnings(Calculation& calc, const CrossSection& section, const PlanarSubdivision& subdivision,
+                      const std::optional<Point>& jump, const CalculationOptions& options) {
   if (jump)
     calc.junction.warnings.push_back(fmt::format(
         "two fixed temperatures meet at {}: the exact heat flux there is infinite, so the heat flows grow slowly "
@@ -254,10 +242,57 @@ Calculation calculate(const CrossSection& section, const CalculationOptions& opt
   if (options.adaptive && !calc.convergence.target_met)
     calc.junction.warnings.push_back("the mesh refinement did not reach the accuracy target (" + calc.convergence.stop_reason +
                                      "); the error bars show the accuracy reached");
-  // What the reader and the geometry stage noticed about the drawing comes first.
   std::vector<std::string> drawing = section.warnings;
   drawing.insert(drawing.end(), subdivision.warnings.begin(), subdivision.warnings.end());
   calc.junction.warnings.insert(calc.junction.warnings.begin(), drawing.begin(), drawing.end());
+}
+
+}  // namespace
+
+Calculation calculate(const CrossSection& section, const CalculationOptions& options) {
+  const auto overall = std::chrono::steady_clock::now();
+  prepare_process_memory();
+  MeshOptions mesh_options = resolved_mesh_options(section, options);
+  Convergence convergence;
+  convergence.adaptive = options.adaptive;
+  convergence.target = options.target;
+
+  auto start = std::chrono::steady_clock::now();
+  const PlanarSubdivision subdivision = planar_subdivision(section);
+  TriMesh mesh = mesh_cross_section(section, subdivision, mesh_options);
+  double mesh_seconds = seconds_since(start);
+  const std::optional<Point> jump = fixed_temperature_jump(section, mesh);
+  convergence.singular_heat_flow = jump.has_value();
+
+  Calculation calc;
+  for (int level = 0;; ++level) {
+    prepare_process_memory();  // huge pages for what the heap gained in the last level
+    if (mesh.n_points() > options.max_nodes)
+      throw_input_error({section.file, 0}, "mesh", fmt::format("{} nodes exceed the limit of {}", mesh.n_points(), options.max_nodes),
+                        "lower the density or the accuracy target");
+    const auto level_start = std::chrono::steady_clock::now();
+    calc = calculate_on_mesh(section, std::move(mesh), options);
+    require_physical_field(section, calc);
+    calc.timings.mesh_seconds = mesh_seconds;
+    convergence.levels.push_back(level_record(calc, mesh_seconds + seconds_since(level_start)));
+    estimate_errors(convergence);
+    if (options.progress) options.progress(level_line(level, calc, convergence));
+
+    if (auto reason = reason_to_stop(convergence, options, level)) {
+      convergence.stop_reason = *reason;
+      break;
+    }
+    start = std::chrono::steady_clock::now();
+    NextMesh next = next_mesh(section, subdivision, calc, convergence, options, mesh_options);
+    if (!next.mesh) {
+      convergence.stop_reason = next.stop_reason;
+      break;
+    }
+    mesh = std::move(*next.mesh);
+    mesh_seconds = seconds_since(start);
+  }
+  calc.convergence = std::move(convergence);
+  add_run_warnings(calc, section, subdivision, jump, options);
   calc.total_seconds = seconds_since(overall);
   return calc;
 }
