@@ -51,7 +51,9 @@ struct Surface {
   std::string name;
   std::size_t environment = 0;       ///< index into CrossSection::environments
   double resistance = 0.0;           ///< Rs of the heat-loss run, m²K/W, ≥ 0
-  double temperature_run_resistance = 0.0;  ///< Rs of the surface-temperature run, m²K/W
+  /// Rs of the surface-temperature run as the file gives it, m²K/W; without it the ISO 13788
+  /// default applies (physics/surface_resistance.h, temperature_run_resistance).
+  std::optional<double> temperature_run_resistance_given;
   SurfaceKind kind = SurfaceKind::opaque;
   std::vector<Point> path;           ///< m, polyline, ≥ 2 points
   SourceLocation where;

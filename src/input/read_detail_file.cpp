@@ -246,7 +246,6 @@ class Reader {
   struct PendingRef { std::size_t* target; std::string id; SourceLocation where; std::string object; };
   std::vector<PendingRef> material_refs_, environment_refs_;
   std::vector<std::string> surface_resistance_text_;  // per surface, for the temperature-run default
-  std::vector<bool> temperature_run_given_;
   std::unordered_map<std::string, int> material_lines_, environment_lines_;  // id → line, for duplicates
 
   SourceLocation where(const XMLElement* e) const { return {file_, e->GetLineNum()}; }
@@ -664,14 +663,11 @@ class Reader {
       const std::string kind = e->Name();
       Surface surface;
       surface.where = where(e);
-      bool temperature_run_given = false;
       if (kind == "surface") {
         allow_attributes(e, {"name", "environment", "resistance", "temperature-run-resistance", "kind", "path", "drawing-layer"});
         surface.resistance = parse_resistance(e, required_text(e, "resistance"), "resistance");
-        if (const char* t = e->Attribute("temperature-run-resistance")) {
-          surface.temperature_run_resistance = parse_resistance(e, t, "temperature-run-resistance");
-          temperature_run_given = true;
-        }
+        if (const char* t = e->Attribute("temperature-run-resistance"))
+          surface.temperature_run_resistance_given = parse_resistance(e, t, "temperature-run-resistance");
         const std::string surface_kind = optional_text(e, "kind", "opaque");
         if (surface_kind == "glazing") surface.kind = SurfaceKind::glazing;
         else if (surface_kind != "opaque")
@@ -686,7 +682,7 @@ class Reader {
                           "every boundary edge not named by one of them is adiabatic");
       }
       if (const char* layer = e->Attribute("drawing-layer")) {
-        read_drawing_surfaces(e, layer, std::move(surface), temperature_run_given);
+        read_drawing_surfaces(e, layer, std::move(surface));
         continue;
       }
       surface.path = parse_outline(e, "path", false);
@@ -696,14 +692,13 @@ class Reader {
       surface.name = optional_text(e, "name", "");
       if (surface.name.empty()) surface.name = fmt::format("{} {}", kind, section_.surfaces.size() + 1);
       environment_refs_.push_back({nullptr, required_text(e, "environment"), where(e), describe(e)});
-      temperature_run_given_.push_back(temperature_run_given);
       section_.surfaces.push_back(std::move(surface));
     }
   }
 
   /// A surface whose path is every open chain of lines on a layer of the detail's drawing (one
   /// surface per chain, numbered after the first).
-  void read_drawing_surfaces(const XMLElement* e, const std::string& layer, Surface surface, bool temperature_run_given) {
+  void read_drawing_surfaces(const XMLElement* e, const std::string& layer, Surface surface) {
     if (e->Attribute("path"))
       throw_input_error(where(e), describe(e), "has both path and drawing-layer", "give the path in one way only");
     if (drawings_.empty())
@@ -729,7 +724,6 @@ class Reader {
       part.path = chains[k]->points;
       part.name = k == 0 ? base : fmt::format("{} {}", base, k + 1);
       environment_refs_.push_back({nullptr, required_text(e, "environment"), where(e), describe(e)});
-      temperature_run_given_.push_back(temperature_run_given);
       section_.surfaces.push_back(std::move(part));
     }
   }
@@ -900,15 +894,6 @@ class Reader {
                                       environments.empty() ? "" : ", or use one of: " + list_keys(environments)));
       Surface& surface = section_.surfaces[s];
       surface.environment = it->second;
-      if (!temperature_run_given_[s]) {
-        // ISO 13788: the surface-temperature run uses Rsi = 0.25 on opaque interior surfaces and
-        // 0.13 on glazing and frames; other surfaces keep their heat-loss value.
-        const bool interior = section_.environments[it->second].side == Side::interior;
-        surface.temperature_run_resistance =
-            (interior && !surface.is_fixed_temperature())
-                ? (surface.kind == SurfaceKind::glazing ? temperature_run_surface_resistance_glazing : temperature_run_surface_resistance_opaque)
-                : surface.resistance;
-      }
     }
   }
 

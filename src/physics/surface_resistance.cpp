@@ -39,4 +39,12 @@ std::optional<double> surface_resistance_preset(std::string_view id) {
   return std::nullopt;
 }
 
+double temperature_run_resistance(const CrossSection& section, const Surface& surface) {
+  if (surface.temperature_run_resistance_given) return *surface.temperature_run_resistance_given;
+  const bool interior = section.environments[surface.environment].side == Side::interior;
+  if (!interior || surface.is_fixed_temperature()) return surface.resistance;
+  return surface.kind == SurfaceKind::glazing ? temperature_run_surface_resistance_glazing
+                                              : temperature_run_surface_resistance_opaque;
+}
+
 }  // namespace edgeflux

@@ -5,6 +5,8 @@
 #include <span>
 #include <string_view>
 
+#include "geometry/cross_section.h"
+
 namespace edgeflux {
 
 /// Rsi on opaque internal surfaces in a surface-temperature run, m²K/W (ISO 13788 clause 4).
@@ -13,6 +15,11 @@ inline constexpr double temperature_run_surface_resistance_opaque = 0.25;
 
 /// Rsi on glazing and frames in a surface-temperature run, m²K/W (ISO 13788 clause 4, ISO 10077-2).
 inline constexpr double temperature_run_surface_resistance_glazing = 0.13;
+
+/// Rs of a surface in the surface-temperature run, m²K/W: the value the detail file gives, else
+/// ISO 13788's 0.25 on opaque interior surfaces and 0.13 on glazing and frames; every other
+/// surface (exterior, other environments, fixed temperatures) keeps its heat-loss value.
+double temperature_run_resistance(const CrossSection& section, const Surface& surface);
 
 /// One named surface resistance a detail file may refer to by `id`.
 struct SurfaceResistancePreset {

@@ -14,6 +14,7 @@
 #include "solver/error_indicator.h"
 #include "solver/solve_temperatures.h"
 #include "mesh/refine_mesh.h"
+#include "physics/surface_resistance.h"
 
 namespace edgeflux {
 namespace {
@@ -145,7 +146,7 @@ Calculation calculate_on_mesh(const CrossSection& section, TriMesh mesh, const C
   std::vector<double> heat_loss_rs, temperature_rs;
   for (const Surface& s : section.surfaces) {
     heat_loss_rs.push_back(s.resistance);
-    temperature_rs.push_back(s.temperature_run_resistance);
+    temperature_rs.push_back(temperature_run_resistance(section, s));
   }
   SteadyConduction conduction(calc.mesh, conductivity, options.solve);
   calc.heat_loss = solve_run(section, calc.mesh, conduction, conductivity, heat_loss_rs);

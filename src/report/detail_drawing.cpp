@@ -13,6 +13,7 @@
 #include "report/field_quantities.h"
 #include "report/material_fills.h"
 #include "report/svg_drawings.h"
+#include "physics/surface_resistance.h"
 
 namespace edgeflux {
 
@@ -149,7 +150,7 @@ Drawing detail_drawing(const CrossSection& section, const Calculation& calc) {
     const Environment& env = section.environments[surface.environment];
     std::vector<std::string> lines{surface.name, fmt::format("{} · {}", env.id, degrees(env.temperature, 1))};
     lines.push_back(surface.is_fixed_temperature() ? std::string("fixed surface temperature")
-                                                   : fmt::format("Rs {:.2f} | {:.2f} m²K/W", surface.resistance, surface.temperature_run_resistance));
+                                                   : fmt::format("Rs {:.2f} | {:.2f} m²K/W", surface.resistance, temperature_run_resistance(section, surface)));
     if (surface.kind == SurfaceKind::glazing) lines.back() += " (glazing)";
     const Box size = label_size_box(lines);
     const Placement p = place_label(label_occupied, hit, allowed, mid, along, distance(a, c), outward, size.x1, size.y1);

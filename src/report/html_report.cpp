@@ -11,6 +11,7 @@
 #include "core/sha256.h"
 #include "report/svg_support.h"
 #include "report/text_format.h"
+#include "physics/surface_resistance.h"
 
 namespace edgeflux {
 namespace {
@@ -297,7 +298,7 @@ std::string html_report(const CrossSection& section, const Calculation& calc, co
     const Surface& surface = section.surfaces[s];
     add(fmt::format("<tr><td>{}</td><td>{}</td><td>{}</td><td class=\"num\">{}</td><td class=\"num\">{}</td><td class=\"num\">{}</td></tr>\n", escape(surface.name),
                     escape(section.environments[surface.environment].id), surface.kind == SurfaceKind::glazing ? "glazing/frame" : "opaque",
-                    surface.is_fixed_temperature() ? std::string("0 (fixed θ)") : fixed(surface.resistance, 2), fixed(surface.temperature_run_resistance, 2),
+                    surface.is_fixed_temperature() ? std::string("0 (fixed θ)") : fixed(surface.resistance, 2), fixed(temperature_run_resistance(section, surface), 2),
                     s < field.surface_heat_flow.size() ? fixed(field.surface_heat_flow[s], 3) : std::string("—")));
   }
   add("</table>\n");

@@ -53,3 +53,21 @@ TEST_CASE("an unknown or differently spelled preset name gives nothing") {
   CHECK_FALSE(surface_resistance_preset("RSE").has_value());
   CHECK_FALSE(surface_resistance_preset("").has_value());
 }
+
+TEST_CASE("surface-temperature run resistance of each surface: ISO 13788 defaults inside, heat-loss values elsewhere") {
+  CrossSection section;
+  section.environments = {{"room", 20.0, Side::interior, {}}, {"outside", -5.0, Side::exterior, {}}, {"garage", 5.0, Side::other, {}}};
+  auto surface = [](std::size_t environment, double resistance, SurfaceKind kind = SurfaceKind::opaque) {
+    Surface s;
+    s.environment = environment, s.resistance = resistance, s.kind = kind;
+    return s;
+  };
+  CHECK(temperature_run_resistance(section, surface(0, 0.13)) == 0.25);                      // ISO 13788 clause 4: opaque
+  CHECK(temperature_run_resistance(section, surface(0, 0.13, SurfaceKind::glazing)) == 0.13);  // ISO 13788 clause 4: glazing
+  CHECK(temperature_run_resistance(section, surface(1, 0.04)) == 0.04);  // exterior keeps Rse (common practice)
+  CHECK(temperature_run_resistance(section, surface(2, 0.13)) == 0.13);  // other environments keep theirs
+  CHECK(temperature_run_resistance(section, surface(0, 0.0)) == 0.0);    // a fixed temperature stays fixed
+  Surface given = surface(0, 0.13);
+  given.temperature_run_resistance_given = 0.2;
+  CHECK(temperature_run_resistance(section, given) == 0.2);  // the file's value wins
+}
