@@ -218,6 +218,16 @@ void validate_cross_section(CrossSection& section) {
                       "give the section surfaces facing at least two environments at different temperatures");
   }
 
+  // ψ in a requested dimension system needs every flanking element's length in it.
+  for (DimensionSystem system : section.requested_systems)
+    for (const FlankingElement& f : section.flanking_elements)
+      if (!f.length[static_cast<int>(system)])
+        throw_input_error(f.where, fmt::format("flanking element '{}'", f.id),
+                          fmt::format("has no {} length, but ψ is requested in {} dimensions", dimension_system_name(system),
+                                      dimension_system_name(system)),
+                          fmt::format("add length-{0}=\"...\" or {0}-from=\"reference point\"",
+                                      system == DimensionSystem::overall_internal ? "overall-internal" : dimension_system_name(system)));
+
   std::set<std::string> probe_names;
   for (const Probe& probe : section.probes)
     if (!probe_names.insert(probe.name).second)

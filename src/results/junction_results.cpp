@@ -62,16 +62,6 @@ JunctionResults junction_results(const CrossSection& section, const TriMesh& mes
 
   // ψ = L2D − Σ Uj lj in every system for which every flanking element has a length.
   if (!section.flanking_elements.empty()) {
-    for (DimensionSystem system : section.requested_systems) {
-      for (std::size_t k = 0; k < r.flanking.size(); ++k)
-        if (!r.flanking[k].length[static_cast<int>(system)])
-          throw_input_error(section.flanking_elements[k].where, fmt::format("flanking element '{}'", r.flanking[k].id),
-                            fmt::format("has no {} length, but ψ is requested in {} dimensions",
-                                        dimension_system_name(system), dimension_system_name(system)),
-                            fmt::format("add length-{0}=\"...\" or {0}-from=\"reference point\"",
-                                        system == DimensionSystem::overall_internal ? "overall-internal"
-                                                                                    : dimension_system_name(system)));
-    }
     if (!heat_loss.field.coupling_2d) {
       r.warnings.push_back("ψ needs exactly two environments; with more, use the coupling coefficients Lij");
     } else {

@@ -68,9 +68,9 @@ struct JunctionResults {
   std::vector<std::string> cautions;
 };
 
-/// Everything above. Throws InputError for a flanking element whose cut-off edge is not a
-/// straight adiabatic boundary edge between two surfaces, or a requested dimension system
-/// without lengths.
+/// Everything above, for a section the geometry stage has accepted (cut-offs on the outline,
+/// lengths in every requested dimension system). Throws InputError only for a climate the
+/// moisture assessment cannot use.
 JunctionResults junction_results(const CrossSection& section, const TriMesh& mesh, const Run& heat_loss,
                                  const Run& surface_temperature);
 
