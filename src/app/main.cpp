@@ -8,7 +8,9 @@
 #include <algorithm>
 #include <cmath>
 #include <cstdio>
+#include <cerrno>
 #include <cstdlib>
+#include <cstring>
 #include <fstream>
 #include <iostream>
 #include <sstream>
@@ -96,7 +98,7 @@ int run_solve(const SolveArgs& args) {
     provenance = {read_whole_file(args.detail_file), report_timestamp(), iso10211_conformity()};
   }
   for (OutputFile& f : build_output_files(section, calc, args.outputs, provenance)) files.push_back(std::move(f));
-  check_output_paths(files);  // every path is checked before the first file is written
+  check_output_paths(files, {args.detail_file});  // every path is checked before the first file is written
   fmt::print("{}", summary_text(section, calc));
   write_output_files(files);
   for (const OutputFile& f : files) fmt::print("Written: {}\n", f.path);
@@ -122,7 +124,7 @@ ParameterRange parse_range(const std::string& text) {
 /// Prints the variants as a table and writes the CSV and the page, all built before any is written.
 int finish_variants(const std::string& heading, const std::vector<VariantSummary>& variants,
                     const std::vector<std::string>& parameter_names, const std::string& csv_file,
-                    const std::string& page_file) {
+                    const std::string& page_file, const std::vector<std::string>& inputs) {
   fmt::print("{}\n\n", heading);
   // The first column is as wide as the longest label, so long parameter names keep the columns aligned.
   std::size_t width = 7;
@@ -148,7 +150,7 @@ int finish_variants(const std::string& heading, const std::vector<VariantSummary
   std::vector<OutputFile> files;
   if (!csv_file.empty()) files.push_back({csv_file, variants_csv(variants, parameter_names)});
   if (!page_file.empty()) files.push_back({page_file, variants_page(heading, variants, parameter_names)});
-  check_output_paths(files);
+  check_output_paths(files, inputs);
   write_output_files(files);
   for (const OutputFile& f : files) fmt::print("Written: {}\n", f.path);
   fmt::print("\nResults depend on the inputs and modelling choices; local building codes and a qualified professional "
@@ -172,7 +174,7 @@ int run_import(const ImportArgs& args) {
   if (!args.detail.empty())
     files.push_back({args.detail, starting_detail_xml(import, args.drawing, args.detail, args.picture)});
   if (!args.picture.empty()) files.push_back({args.picture, import_picture_svg(import)});
-  check_output_paths(files);
+  check_output_paths(files, {args.drawing});
   fmt::print("{}", import_summary_text(import));
   write_output_files(files);
   for (const OutputFile& f : files) fmt::print("Written: {}\n", f.path);
@@ -180,6 +182,17 @@ int run_import(const ImportArgs& args) {
     fmt::print("Next: fill in the conductivities marked \"?\", choose the surfaces from S1…S{} in {}, then "
                "edgeflux solve {}\n", import.runs.size(), args.detail, args.detail);
   return 0;
+}
+
+/// The exit code after making sure the printed results reached standard output: a full disk or
+/// a closed pipe there is an error, not a silent empty file.
+int with_output_flushed(int code) {
+  if (std::fflush(stdout) != 0 || std::ferror(stdout)) {
+    fmt::print(stderr, "edgeflux: error: standard output: the results could not be written ({}). Fix: free space on the "
+                       "disk or check where the output is redirected\n", std::strerror(errno));
+    return 2;
+  }
+  return code;
 }
 
 std::function<void(int, int)> variant_progress(bool quiet) {
@@ -283,8 +296,8 @@ int main(int argc, char** argv) {
     return code == 0 ? 0 : 1;
   }
   try {
-    if (*solve_cmd) return run_solve(solve);
-    if (*import_cmd) return run_import(import_args);
+    if (*solve_cmd) return with_output_flushed(run_solve(solve));
+    if (*import_cmd) return with_output_flushed(run_import(import_args));
     if (*sweep_cmd || *compare_cmd) {
       const bool is_sweep = sweep_cmd->parsed();
       VariantArgs& args = is_sweep ? sweep : compare;
@@ -297,11 +310,13 @@ int main(int argc, char** argv) {
         std::vector<std::string> names;
         for (const ParameterRange& r : ranges) names.push_back(r.name);
         const auto variants = run_sweep(args.inputs[0], ranges, options, args.jobs, variant_progress(args.quiet));
-        return finish_variants("Parameter sweep of " + args.inputs[0], variants, names, args.csv, args.page);
+        return with_output_flushed(
+            finish_variants("Parameter sweep of " + args.inputs[0], variants, names, args.csv, args.page, args.inputs));
       }
       for (const std::string& f : args.inputs) read_detail_file(f);
       const auto variants = run_comparison(args.inputs, options, args.jobs, variant_progress(args.quiet));
-      return finish_variants("Comparison of " + std::to_string(args.inputs.size()) + " details", variants, {}, args.csv, args.page);
+      return with_output_flushed(finish_variants("Comparison of " + std::to_string(args.inputs.size()) + " details", variants,
+                                                 {}, args.csv, args.page, args.inputs));
     }
     if (*materials_cmd) {
       const auto found = search_material_library(material_search);
@@ -312,7 +327,7 @@ int main(int argc, char** argv) {
       fmt::print("{} of {} entries. Use one in a detail file as <material id=\"...\" library=\"ENTRY\"/>; "
                  "\"typical\" values must be replaced by the product's declared value.\n",
                  found.size(), material_library().size());
-      return found.empty() ? 2 : 0;
+      return with_output_flushed(found.empty() ? 2 : 0);
     }
     if (*conformity_cmd) {
       const ConformityReport report = iso10211_conformity(
@@ -320,7 +335,7 @@ int main(int argc, char** argv) {
             fmt::print(stderr, "edgeflux: solving {}…\n", stage);
           });
       fmt::print("{}", conformity_text(report));
-      return report.passed() ? 0 : 4;
+      return with_output_flushed(report.passed() ? 0 : 4);
     }
   } catch (const InputError& e) {
     fmt::print(stderr, "edgeflux: error: {}\n", e.what());

@@ -14,15 +14,20 @@ struct ProgramRun {
   std::string output;  ///< standard output and standard error together
 };
 
-/// Runs `edgeflux ARGUMENTS` through the shell (arguments quoted by the caller).
-inline ProgramRun run_program(const std::string& arguments) {
-  const std::string command = std::string(EDGEFLUX_BINARY) + " " + arguments + " 2>&1";
+/// Runs a shell command line; its standard output and error together.
+inline ProgramRun run_shell(const std::string& command_line) {
+  const std::string command = "{ " + command_line + "; } 2>&1";
   FILE* pipe = popen(command.c_str(), "r");
   std::string output;
   char buffer[4096];
   while (std::size_t n = fread(buffer, 1, sizeof buffer, pipe)) output.append(buffer, n);
   const int status = pclose(pipe);
   return {WIFEXITED(status) ? WEXITSTATUS(status) : -1, output};
+}
+
+/// Runs `edgeflux ARGUMENTS` through the shell (arguments quoted by the caller).
+inline ProgramRun run_program(const std::string& arguments) {
+  return run_shell(std::string(EDGEFLUX_BINARY) + " " + arguments);
 }
 
 /// A folder of this test process under the system's temporary folder, created if needed.

@@ -1,0 +1,117 @@
+// Outputs are never lost: an output that is an input, two outputs with one name, read-only files
+// and devices are refused before anything is written; symlinks are followed; an interrupted run
+// leaves no temporary behind; a standard output that cannot be written is an error. Runs the
+// real program.
+#include <doctest/doctest.h>
+
+#include <sys/stat.h>
+
+#include <filesystem>
+#include <fstream>
+#include <sstream>
+
+#include "../support/fixtures.h"
+#include "../support/run_program.h"
+
+namespace fs = std::filesystem;
+using edgeflux::test::run_program;
+
+namespace {
+
+std::string read_all(const fs::path& p) {
+  std::ifstream in(p, std::ios::binary);
+  std::ostringstream s;
+  s << in.rdbuf();
+  return s.str();
+}
+
+bool has_temporaries(const fs::path& folder) {
+  for (const auto& entry : fs::directory_iterator(folder))
+    if (entry.path().filename().string().find(".partial") != std::string::npos) return true;
+  return false;
+}
+
+struct Folder {
+  fs::path path = edgeflux::test::scratch_folder("outputs");
+  fs::path detail = path / "wall.xml";
+  Folder() {
+    fs::remove_all(path);
+    fs::create_directories(path);
+    std::ofstream(detail) << edgeflux::test::detail_xml(edgeflux::test::two_layer_wall_body());
+  }
+  ~Folder() { fs::remove_all(path); }
+  std::string q(const fs::path& p) const { return "'" + p.string() + "'"; }
+};
+
+}  // namespace
+
+TEST_CASE("an output named like the input, directly, through ./ or a symlink, is refused and the input kept") {
+  Folder f;
+  const std::string before = read_all(f.detail);
+  fs::create_symlink(f.detail, f.path / "link.json");
+  for (const fs::path& out : {f.detail, f.path / "." / "wall.xml", f.path / "link.json"}) {
+    CAPTURE(out.string());
+    const auto run = run_program("solve -q " + f.q(f.detail) + " --json " + f.q(out));
+    CHECK(run.exit_code == 2);
+    CHECK(run.output.find("is the input file") != std::string::npos);
+    CHECK(read_all(f.detail) == before);
+  }
+  const auto surface_csv = run_program("solve -q " + f.q(f.detail) + " --surface-csv " + f.q(f.detail));
+  CHECK(surface_csv.exit_code == 2);
+  CHECK(read_all(f.detail) == before);
+}
+
+TEST_CASE("two outputs with one name are refused, and nothing is written") {
+  Folder f;
+  const auto run = run_program("solve -q " + f.q(f.detail) + " --json " + f.q(f.path / "same.out") + " --report " +
+                               f.q(f.path / "same.out"));
+  CHECK(run.exit_code == 2);
+  CHECK(run.output.find("named twice among the outputs") != std::string::npos);
+  CHECK(!fs::exists(f.path / "same.out"));
+}
+
+TEST_CASE("a read-only file and a device are refused; a symlink's target is written and the link kept") {
+  Folder f;
+  const fs::path protected_file = f.path / "protected.json";
+  std::ofstream(protected_file) << "keep";
+  fs::permissions(protected_file, fs::perms::owner_read | fs::perms::group_read | fs::perms::others_read);
+  auto run = run_program("solve -q " + f.q(f.detail) + " --json " + f.q(protected_file));
+  CHECK(run.exit_code == 2);
+  CHECK(run.output.find("read-only") != std::string::npos);
+  CHECK(read_all(protected_file) == "keep");
+
+  run = run_program("solve -q " + f.q(f.detail) + " --json /dev/null");
+  CHECK(run.exit_code == 2);
+  CHECK(run.output.find("not a regular file") != std::string::npos);
+
+  fs::create_symlink("results.json", f.path / "latest.json");  // dangling: the target does not exist yet
+  run = run_program("solve -q " + f.q(f.detail) + " --json " + f.q(f.path / "latest.json"));
+  CHECK(run.exit_code == 0);
+  CHECK(fs::is_symlink(fs::symlink_status(f.path / "latest.json")));
+  CHECK(read_all(f.path / "results.json").find("\"coupling_coefficient_2d_w_per_mk\"") != std::string::npos);
+  CHECK(!has_temporaries(f.path));
+}
+
+TEST_CASE("interrupted at any moment, a run leaves no temporary file and no half-written output") {
+  Folder f;
+  const fs::path vtu = f.path / "field.vtu";
+  // A VTK file of some megabytes takes a while to format and write; SIGTERM after growing delays
+  // hits the solve, the formatting or the writing.
+  for (const char* delay : {"0.05", "0.2", "0.4", "0.6", "0.8", "1.0"}) {
+    CAPTURE(delay);
+    fs::remove(vtu);
+    edgeflux::test::run_shell(std::string("timeout -s TERM ") + delay + " " + std::string(EDGEFLUX_BINARY) + " solve -q " +
+                              f.q(edgeflux::test::source_path("examples/intermediate-floor.xml")) +
+                              " --fixed-mesh --density 8 --vtu " + f.q(vtu) + " >/dev/null");
+    CHECK(!has_temporaries(f.path));
+    // Either no file, or a whole one.
+    if (fs::exists(vtu)) CHECK(read_all(vtu).find("</VTKFile>") != std::string::npos);
+  }
+}
+
+TEST_CASE("results that cannot be written to standard output end with exit 2 (a full disk)") {
+  Folder f;
+  const auto run = run_program("solve -q " + f.q(f.detail) + " > /dev/full");
+  CHECK(run.exit_code == 2);
+  CHECK(run.output.find("standard output") != std::string::npos);
+}
