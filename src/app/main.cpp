@@ -4,6 +4,7 @@
 //   4  the conformity check found a value outside the ISO 10211 tolerance
 #include <CLI/CLI.hpp>
 #include <fmt/format.h>
+#include <fmt/ranges.h>
 
 #include <algorithm>
 #include <cmath>
@@ -195,6 +196,20 @@ int with_output_flushed(int code) {
   return code;
 }
 
+/// A number in [lo, hi]; "nan" and "inf" are refused (CLI11's Range lets NaN through, since every
+/// comparison with it is false).
+CLI::Validator finite_range(double lo, double hi) {
+  return CLI::Validator(
+      [lo, hi](std::string& text) -> std::string {
+        char* end = nullptr;
+        const double v = std::strtod(text.c_str(), &end);
+        if (end == text.c_str() || *end != '\0' || !std::isfinite(v)) return "\"" + text.substr(0, 40) + "\" is not a finite number";
+        if (v < lo || v > hi) return fmt::format("{} is outside [{}, {}]", text.substr(0, 40), lo, hi);
+        return "";
+      },
+      fmt::format("NUMBER in [{}, {}]", lo, hi));
+}
+
 std::function<void(int, int)> variant_progress(bool quiet) {
   if (quiet) return {};
   return [](int done, int total) { fmt::print(stderr, "\redgeflux: {}/{} variants solved{}", done, total, done == total ? "\n" : ""); };
@@ -217,7 +232,7 @@ int main(int argc, char** argv) {
   solve_cmd->add_option("detail", solve.detail_file, "Detail file (XML, see docs/detail-format.md)")->required();
   solve_cmd->add_option("--json", solve.json_file, "Also write the results as JSON to this file");
   solve_cmd->add_option("--density", solve.density, "Mesh density factor (overrides the file; 2 ≈ twice the elements per length)")
-      ->check(CLI::Range(MeshSettings::min_density, MeshSettings::max_density));
+      ->check(finite_range(MeshSettings::min_density, MeshSettings::max_density));
   solve_cmd->add_option("--mesher", solve.mesher, "Mesher: automatic, grid (rectilinear sections) or delaunay")
       ->check(CLI::IsMember({"automatic", "grid", "delaunay"}));
   solve_cmd->add_option("--solver", solve.solver, "Linear solver: cholesky (default), ldlt or cg")
@@ -231,12 +246,12 @@ int main(int argc, char** argv) {
 
   solve_cmd->add_option("--target", solve.target.coupling_relative,
                         "Relative accuracy asked of L2D (and of each heat flow), default 0.001 = 0.1 %")
-      ->check(CLI::Range(1e-6, 0.1));
+      ->check(finite_range(1e-6, 0.1));
   solve_cmd->add_option("--psi-target", solve.target.psi_absolute, "Accuracy asked of ψ in W/(m·K), default 0.0005")
-      ->check(CLI::Range(1e-7, 0.1));
+      ->check(finite_range(1e-7, 0.1));
   solve_cmd->add_option("--temperature-target", solve.target.temperature_absolute,
                         "Accuracy asked of the minimum interior surface temperature in K, default 0.01")
-      ->check(CLI::Range(1e-6, 1.0));
+      ->check(finite_range(1e-6, 1.0));
   solve_cmd->add_option("--set", solve.parameter_settings,
                         "Override a <parameter> of the detail file, e.g. --set insulation_thickness=160 (repeatable)");
   solve_cmd->add_flag("--fixed-mesh", solve.fixed_mesh,
@@ -266,7 +281,7 @@ int main(int argc, char** argv) {
     cmd->add_option("--page", args->page, "Write an HTML page with the table (and plots for sweeps) to this file");
     cmd->add_option("--jobs", args->jobs, "Parallel calculations (default: all cores)")->check(CLI::Range(0, 256));
     cmd->add_option("--target", args->target.coupling_relative, "Relative accuracy asked of L2D, default 0.001")
-        ->check(CLI::Range(1e-6, 0.1));
+        ->check(finite_range(1e-6, 0.1));
     cmd->add_flag("-q,--quiet", args->quiet, "Do not print progress");
   }
 
@@ -289,6 +304,15 @@ int main(int argc, char** argv) {
                     "exits with 4 if any value is outside the standard's tolerance");
   conformity_cmd->add_flag("-q,--quiet", conformity_quiet, "Do not print progress");
 
+  // An unknown command is named, with the ones there are (the parser would only say that a
+  // command is required).
+  std::vector<std::string> names;
+  for (const CLI::App* command : app.get_subcommands({})) names.push_back(command->get_name());
+  if (argc > 1 && argv[1][0] != '-' && std::find(names.begin(), names.end(), argv[1]) == names.end()) {
+    fmt::print(stderr, "edgeflux: error: \"{}\" is not a command; the commands are {} (edgeflux --help)\n",
+               std::string(argv[1]).substr(0, 60), fmt::join(names, ", "));
+    return 1;
+  }
   try {
     app.parse(argc, argv);
   } catch (const CLI::ParseError& e) {
@@ -305,7 +329,12 @@ int main(int argc, char** argv) {
       options.target = args.target;
       if (is_sweep) {
         std::vector<ParameterRange> ranges;
-        for (const std::string& r : args.ranges) ranges.push_back(parse_range(r));
+        for (const std::string& r : args.ranges) {
+          ranges.push_back(parse_range(r));
+          if (ranges.size() == 2 && ranges[0].name == ranges[1].name)
+            throw_input_error({"command line", 0}, "--vary " + r, fmt::format("varies {} a second time", ranges[1].name),
+                              "vary two different parameters, or one over a single range");
+        }
         read_detail_file(args.inputs[0]);  // a broken file is reported once, before any variant runs
         std::vector<std::string> names;
         for (const ParameterRange& r : ranges) names.push_back(r.name);

@@ -85,6 +85,11 @@ struct FlankingElement {
   SourceLocation where;
 };
 
+/// The smallest temperature difference between environments (and between the climate's interior
+/// and exterior) that edgeflux accepts, K: heat flows, L2D and fRsi = (θsi − θe)/(θi − θe) divide by
+/// it, and below a tenth of a kelvin the results are rounding noise scaled up (common practice).
+inline constexpr double min_temperature_difference = 0.1;
+
 /// Interior climate for the condensation and mould verdict (ISO 13788).
 struct Climate {
   double interior_temperature = 20.0;  ///< °C

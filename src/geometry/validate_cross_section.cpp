@@ -217,6 +217,14 @@ void validate_cross_section(CrossSection& section) {
                                                     env.temperature),
                       "give the section surfaces facing at least two environments at different temperatures");
   }
+  const double spread = *temperatures.rbegin() - *temperatures.begin();
+  if (spread < min_temperature_difference) {
+    const Environment& env = section.environments[section.surfaces.front().environment];
+    throw_input_error(env.where, fmt::format("environment '{}'", env.id),
+                      fmt::format("the environments the surfaces face differ by only {:.3g} K, less than the {} K the "
+                                  "results can be trusted on", spread, min_temperature_difference),
+                      "use the design temperatures of the assessment, e.g. 20 °C inside and -5 °C outside");
+  }
 
   // ψ in a requested dimension system needs every flanking element's length in it.
   for (DimensionSystem system : section.requested_systems)

@@ -238,6 +238,12 @@ void DetailReader::read_climate(const XMLElement* e) {
   if (c.interior_temperature == c.exterior_temperature)
     throw_input_error(c.where, "<climate>", "interior and exterior temperatures are equal, so fRsi is undefined",
                       "use the design temperatures of the assessment, e.g. 20 and -5");
+  if (std::abs(c.interior_temperature - c.exterior_temperature) < min_temperature_difference)
+    throw_input_error(c.where, "<climate>",
+                      fmt::format("interior and exterior temperatures differ by {:.3g} K, less than the {} K a temperature "
+                                  "factor can be judged on", std::abs(c.interior_temperature - c.exterior_temperature),
+                                  min_temperature_difference),
+                      "use the design temperatures of the assessment, e.g. 20 and -5");
   c.rule = optional_text(e, "rule", "none");
   if (!minimum_temperature_factor_rule(c.rule)) {
     std::string names;

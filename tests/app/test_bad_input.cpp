@@ -122,3 +122,21 @@ TEST_CASE("bad input: one clear message, exit code 2, no output file") {
   }
   fs::remove_all(folder);
 }
+
+TEST_CASE("command-line values: NaN and infinity refused, one parameter varied twice refused, an unknown command named") {
+  const std::string detail = "'" + edgeflux::test::source_path("examples/intermediate-floor.xml") + "'";
+  for (const std::string& option : {"--target nan", "--target inf", "--psi-target nan", "--temperature-target -nan",
+                                    "--density nan", "--density inf"}) {
+    CAPTURE(option);
+    const Run run = run_program("solve -q " + detail + " " + option);
+    CHECK(run.exit_code == 1);  // a usage error
+    CHECK(run.output.find("is not a finite number") != std::string::npos);
+  }
+  const std::string sweep = "'" + edgeflux::test::source_path("details/balcony-slab-connector.xml") + "'";
+  Run run = run_program("sweep -q " + sweep + " --vary lambda_connector=0.1:0.2:2 --vary lambda_connector=0.3:0.4:2");
+  CHECK(run.exit_code == 2);
+  CHECK(run.output.find("varies lambda_connector a second time") != std::string::npos);
+  run = run_program("slove " + detail);
+  CHECK(run.exit_code == 1);
+  CHECK(run.output.find("\"slove\" is not a command; the commands are solve") != std::string::npos);
+}
