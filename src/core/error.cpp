@@ -8,11 +8,28 @@
 
 namespace edgeflux {
 
+namespace {
+
+/// A part of a message that may quote the user's text: beyond `limit` characters its middle is
+/// left out, so a 20 MB attribute becomes a readable line that still shows how it begins and ends.
+std::string shortened(const std::string& text, std::size_t limit) {
+  if (text.size() <= limit) return text;
+  // Cut at UTF-8 character boundaries (not inside a multi-byte sequence).
+  auto boundary = [&](std::size_t at) {
+    while (at > 0 && at < text.size() && (static_cast<unsigned char>(text[at]) & 0xC0) == 0x80) --at;
+    return at;
+  };
+  const std::size_t head = boundary(limit * 2 / 3), tail = boundary(text.size() - limit / 3);
+  return fmt::format("{} … [{} characters left out] … {}", text.substr(0, head), tail - head, text.substr(tail));
+}
+
+}  // namespace
+
 std::string format_input_error(const SourceLocation& where, const std::string& object, const std::string& problem,
                                const std::string& fix) {
-  std::string place = where.file.empty() ? std::string("input") : where.file;
+  std::string place = where.file.empty() ? std::string("input") : shortened(where.file, 300);
   if (where.line > 0) place += fmt::format(":{}", where.line);
-  std::string message = fmt::format("{}: {}: {}", place, object, problem);
+  std::string message = fmt::format("{}: {}: {}", place, shortened(object, 200), shortened(problem, 600));
   if (!fix.empty()) message += fmt::format(". Fix: {}", fix);
   return message;
 }

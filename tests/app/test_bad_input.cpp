@@ -140,3 +140,16 @@ TEST_CASE("command-line values: NaN and infinity refused, one parameter varied t
   CHECK(run.exit_code == 1);
   CHECK(run.output.find("\"slove\" is not a command; the commands are solve") != std::string::npos);
 }
+
+TEST_CASE("a huge value in the input is quoted shortened: the message stays one readable line") {
+  const fs::path folder = scratch_folder();
+  const fs::path input = folder / "huge.xml";
+  std::ofstream(input) << edgeflux::test::detail_xml(
+      replace(good_body, "conductivity=\"0.8\"", "conductivity=\"" + std::string(1'000'000, '7') + "x\""));
+  const Run run = run_program("solve -q '" + input.string() + "'");
+  CHECK(run.exit_code == 2);
+  CHECK(run.output.size() < 1200);  // common practice: a message a terminal shows in a few lines
+  CHECK(run.output.find("characters left out") != std::string::npos);
+  CHECK(run.output.find("huge.xml:4:") != std::string::npos);
+  fs::remove(input);
+}
