@@ -57,7 +57,7 @@ class DetailReader {
   DetailReader(std::string file, const ParameterOverrides& overrides, double arc_tolerance)
       : file_(std::move(file)), overrides_(overrides), arc_tolerance_(arc_tolerance) {}
 
-  CrossSection read(const std::string& text);
+  CrossSection read(const std::string& raw);
 
  private:
   std::string file_;
@@ -73,6 +73,10 @@ class DetailReader {
   /// parse again without entity processing and reject every reference other than the five XML
   /// entities and numeric character references. CDATA, comments and the DTD are not scanned.
   void reject_undefined_entities(const std::string& text) const;
+
+  /// The file's text, checked as UTF-8 (other encodings, NUL bytes, invalid bytes refused with
+  /// their line), with line endings made LF.
+  std::string checked_text(const std::string& raw) const;
 
   void scan_entities(const tinyxml2::XMLNode* node) const;
 

@@ -3,9 +3,66 @@
 // the attribute helpers every element's reader uses.
 #include "input/detail_reader.h"
 
+#include "core/utf8.h"
+
 namespace edgeflux {
 
-CrossSection DetailReader::read(const std::string& text) {
+namespace {
+
+/// The line (1-based) of byte `at`.
+int line_of(const std::string& text, std::size_t at) {
+  return 1 + static_cast<int>(std::count(text.begin(), text.begin() + static_cast<std::ptrdiff_t>(at), '\n'));
+}
+
+}  // namespace
+
+/// What the XML parser would report as "not well-formed" or read wrongly: another encoding, NUL
+/// bytes, invalid UTF-8. Line endings are made LF as XML prescribes (CR-only files get their line
+/// numbers right).
+std::string DetailReader::checked_text(const std::string& raw) const {
+  auto refuse = [&](int line, const std::string& problem, const std::string& fix) {
+    throw_input_error({file_, line}, "detail file", problem, fix);
+  };
+  if (raw.empty()) refuse(0, "is empty", "write the detail as XML (docs/detail-format.md), or give the right file");
+  const auto starts = [&](std::string_view bom) { return raw.compare(0, bom.size(), bom) == 0; };
+  if (starts(std::string_view("\x00\x00\xFE\xFF", 4)) || starts(std::string_view("\xFF\xFE\x00\x00", 4)))
+    refuse(0, "is encoded in UTF-32", "save it as UTF-8 (every text editor can), then run again");
+  if (starts("\xFE\xFF") || starts("\xFF\xFE"))
+    refuse(0, "is encoded in UTF-16", "save it as UTF-8 (every text editor can), then run again");
+  if (const std::size_t nul = raw.find('\0'); nul != std::string::npos)
+    refuse(line_of(raw, nul), raw.find_first_not_of(std::string(1, '\0')) == std::string::npos ? "holds only NUL bytes"
+                                                                                            : "holds a NUL byte: it is not a text file",
+           "give the XML detail file; a damaged file must be restored from a copy");
+  // The declared encoding: <?xml version="1.0" encoding="..."?>.
+  if (raw.compare(raw.compare(0, 3, "\xEF\xBB\xBF") == 0 ? 3 : 0, 5, "<?xml") == 0) {
+    const std::size_t end = raw.find("?>");
+    const std::string declaration = raw.substr(0, end == std::string::npos ? 200 : end);
+    const std::size_t at = declaration.find("encoding");
+    if (at != std::string::npos) {
+      const std::size_t q = declaration.find_first_of("\"'", at);
+      const std::size_t q2 = q == std::string::npos ? q : declaration.find(declaration[q], q + 1);
+      std::string encoding = q2 == std::string::npos ? "" : declaration.substr(q + 1, q2 - q - 1);
+      std::string lower = encoding;
+      for (char& c : lower) c = static_cast<char>(std::tolower(static_cast<unsigned char>(c)));
+      if (lower != "utf-8" && lower != "utf8" && lower != "us-ascii" && lower != "ascii")
+        refuse(1, fmt::format("declares the encoding \"{}\"; edgeflux reads UTF-8 only", encoding.substr(0, 40)),
+               "save the file as UTF-8 and write encoding=\"UTF-8\" in its first line");
+    }
+  }
+  if (const std::size_t bad = invalid_utf8_at(raw); bad != std::string::npos)
+    refuse(line_of(raw, bad), fmt::format("is not valid UTF-8 here (byte 0x{:02X})", static_cast<unsigned char>(raw[bad])),
+           "save the file as UTF-8; a file from another program may be in Latin-1 or Windows-1252");
+  std::string text;
+  text.reserve(raw.size());
+  for (std::size_t i = 0; i < raw.size(); ++i) {
+    if (raw[i] != '\r') text += raw[i];
+    else if (i + 1 >= raw.size() || raw[i + 1] != '\n') text += '\n';
+  }
+  return text;
+}
+
+CrossSection DetailReader::read(const std::string& raw) {
+  const std::string text = checked_text(raw);
   tinyxml2::XMLDocument doc;
   if (doc.Parse(text.c_str(), text.size()) != tinyxml2::XML_SUCCESS) {
     throw_input_error({file_, doc.ErrorLineNum()}, "XML",
@@ -53,6 +110,11 @@ CrossSection DetailReader::read(const std::string& text) {
   for (const XMLElement* e = root->FirstChildElement(); e; e = e->NextSiblingElement()) {
     const std::string name = e->Name();
     if (name == "parameters") continue;
+    if ((name == "title" || name == "notes") && e->FirstChildElement())
+      throw_input_error(where(e->FirstChildElement()), fmt::format("<{}>", name),
+                        fmt::format("holds the element <{}>, but is plain text (only its first part would be kept)",
+                                    e->FirstChildElement()->Name()),
+                        "write the text without tags; write &lt; for a literal <");
     if (name == "title") section_.title = element_text(e);
     else if (name == "notes") section_.notes = element_text(e);
     else if (name == "materials") for_children(e, "material", [&](const XMLElement* m) { read_material(m); });
@@ -102,7 +164,21 @@ void DetailReader::check_entities(std::string_view value, int line, const std::s
                          std::all_of(name.begin() + 1, name.end(), [](unsigned char c) { return std::isdigit(c); });
     const bool hex = name.size() > 2 && name[0] == '#' && name[1] == 'x' &&
                      std::all_of(name.begin() + 2, name.end(), [](unsigned char c) { return std::isxdigit(c); });
-    if (decimal || hex || std::find(std::begin(known), std::end(known), name) != std::end(known)) continue;
+    if (decimal || hex) {
+      // A reference to a character XML forbids (controls, surrogates, beyond Unicode) would end
+      // the text early or make it invalid UTF-8 in every output.
+      const std::string digits(name.substr(hex ? 2 : 1));
+      const unsigned long code = digits.size() > 8 ? 0x110000ul : std::stoul(digits, nullptr, hex ? 16 : 10);
+      const bool allowed = code == 0x9 || code == 0xA || code == 0xD || (code >= 0x20 && code < 0xD800) ||
+                           (code >= 0xE000 && code <= 0xFFFD) || (code >= 0x10000 && code <= 0x10FFFF);
+      if (allowed) continue;
+      const int here = line + static_cast<int>(std::count(value.begin(), value.begin() + at, '\n'));
+      throw_input_error({file_, here}, object,
+                        fmt::format("the character reference \"&{};\" names a character XML text may not hold (a control "
+                                    "character, a surrogate or a code beyond Unicode)", std::string(name.substr(0, 12))),
+                        "remove it, or write the character meant itself (UTF-8)");
+    }
+    if (std::find(std::begin(known), std::end(known), name) != std::end(known)) continue;
     // The line of the reference itself: the node's first line plus the line breaks before it.
     const int here = line + static_cast<int>(std::count(value.begin(), value.begin() + at, '\n'));
     const std::string shown(value.substr(at, end == std::string_view::npos || end - at > 40 ? std::min<std::size_t>(20, value.size() - at) : end - at + 1));
@@ -258,6 +334,9 @@ CrossSection parse_detail_text(const std::string& text, const std::string& file_
 }
 
 CrossSection read_detail_file(const std::string& path, const ParameterOverrides& overrides, double arc_tolerance) {
+  std::error_code ec;
+  if (std::filesystem::is_directory(path, ec))
+    throw_input_error({path, 0}, "detail file", "is a folder", "give the detail file inside it, e.g. " + path + "/detail.xml");
   std::ifstream in(path, std::ios::binary);
   if (!in)
     throw_input_error({path, 0}, "detail file", "cannot be opened (missing or unreadable)",

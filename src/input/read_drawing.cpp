@@ -1,6 +1,7 @@
 // DXF drawings read with dxflib into plain outlines and chains (see the header).
 #include "input/read_drawing.h"
 
+#include "core/utf8.h"
 #include "input/drawing_entities.h"
 
 #include <dxflib/dl_creationadapter.h>
@@ -30,10 +31,10 @@ class Collector : public DL_CreationAdapter {
  public:
   RawDrawing raw;
 
-  void addLayer(const DL_LayerData& d) override { raw.layers_declared.push_back(d.name); }
+  void addLayer(const DL_LayerData& d) override { raw.layers_declared.push_back(valid_utf8(d.name)); }
   void addBlock(const DL_BlockData& d) override {
-    current_ = d.name;
-    raw.block_base[d.name] = {d.bpx, d.bpy};
+    current_ = valid_utf8(d.name);
+    raw.block_base[current_] = {d.bpx, d.bpy};
   }
   void endBlock() override { current_.clear(); }
 
@@ -68,7 +69,7 @@ class Collector : public DL_CreationAdapter {
   void addSpline(const DL_SplineData&) override { push(start(RawEntity::Kind::spline, "SPLINE")); }
   void addInsert(const DL_InsertData& d) override {
     RawEntity e = start(RawEntity::Kind::insert, "INSERT");
-    e.block = d.name, e.a = {d.ipx, d.ipy}, e.scale = {d.sx, d.sy}, e.angle = d.angle;
+    e.block = valid_utf8(d.name), e.a = {d.ipx, d.ipy}, e.scale = {d.sx, d.sy}, e.angle = d.angle;
     e.columns = std::max(1, d.cols), e.rows = std::max(1, d.rows), e.spacing = {d.colSp, d.rowSp};
     push(std::move(e));
   }
@@ -192,7 +193,7 @@ class Collector : public DL_CreationAdapter {
     RawEntity e{};
     e.kind = kind;
     e.type = type;
-    e.layer = getAttributes().getLayer();
+    e.layer = valid_utf8(getAttributes().getLayer());
     e.handle = hex_handle(getAttributes().getHandle());
     e.mirrored = getExtrusion() != nullptr && getExtrusion()->getDirection()[2] < 0.0;
     return e;

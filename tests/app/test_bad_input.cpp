@@ -153,3 +153,9 @@ TEST_CASE("a huge value in the input is quoted shortened: the message stays one 
   CHECK(run.output.find("huge.xml:4:") != std::string::npos);
   fs::remove(input);
 }
+
+TEST_CASE("a folder given as the detail file gets its own message") {
+  const Run run = run_program("solve -q '" + scratch_folder().string() + "'");
+  CHECK(run.exit_code == 2);
+  CHECK(run.output.find("detail file: is a folder") != std::string::npos);
+}
