@@ -38,6 +38,7 @@ Run solve_run(const CrossSection& section, const TriMesh& mesh, SteadyConduction
   }
   Solution solution = conduction.solve(run.problem.surface_resistance, unit_loads);
   run.info = solution.info;
+  if (!run.info.ok && run.info.out_of_memory) throw std::bad_alloc();
   if (!run.info.ok) throw std::runtime_error("numerical failure: " + run.info.message);
   run.unit_temperature = std::move(solution.temperature);
   run.temperature.assign(mesh.n_points(), 0.0);
@@ -272,7 +273,18 @@ Calculation calculate(const CrossSection& section, const CalculationOptions& opt
       throw_input_error({section.file, 0}, "mesh", fmt::format("{} nodes exceed the limit of {}", mesh.n_points(), options.max_nodes),
                         "lower the density or the accuracy target");
     const auto level_start = std::chrono::steady_clock::now();
-    calc = calculate_on_mesh(section, std::move(mesh), options);
+    const int nodes = mesh.n_points();
+    try {
+      calc = calculate_on_mesh(section, std::move(mesh), options);
+    } catch (const std::bad_alloc&) {
+      // The levels solved so far keep their results and error bars; without one, nothing is trusted.
+      if (level == 0)
+        throw std::runtime_error(fmt::format("the memory ran out while solving the first mesh ({} nodes): lower the "
+                                             "density, or run on a machine with more memory", nodes));
+      convergence.stop_reason = fmt::format("stopped before reaching the target: the memory ran out while solving the "
+                                            "next mesh ({} nodes)", nodes);
+      break;
+    }
     require_physical_field(section, calc);
     calc.timings.mesh_seconds = mesh_seconds;
     convergence.levels.push_back(level_record(calc, mesh_seconds + seconds_since(level_start)));

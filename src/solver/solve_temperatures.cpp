@@ -1,6 +1,8 @@
 // Assembly of the surface terms, elimination of fixed temperatures and the sparse solve.
 #include "solver/solve_temperatures.h"
 
+#include <fmt/format.h>
+
 #include <Eigen/CholmodSupport>
 #include <Eigen/IterativeLinearSolvers>
 #include <Eigen/SparseCholesky>
@@ -38,6 +40,9 @@ SteadyConduction::SteadyConduction(const TriMesh& mesh, const std::vector<double
     : state_(std::make_unique<State>()) {
   state_->mesh = &mesh;
   state_->options = options;
+  // CHOLMOD reports its errors in its status, which is read below; it must not print them on
+  // standard output among the results.
+  state_->cholmod.cholmod().print = 0;
   state_->conduction = conduction_matrix(mesh, triangle_conductivity);
   const SparseMatrix& k = state_->conduction;
   state_->diagonal_position.assign(mesh.n_points(), -1);
@@ -168,6 +173,10 @@ Solution SteadyConduction::solve(const std::vector<double>& surface_resistance, 
         info.solver = "supernodal Cholesky (CHOLMOD)";
         prepare_factorisation_runtime(n_unknowns);
         ok = finish(st.cholmod);
+        if (!ok && st.cholmod.cholmod().status == CHOLMOD_OUT_OF_MEMORY) {
+          info.out_of_memory = true;
+          info.message = fmt::format("the memory ran out while factorising the conduction matrix ({} unknowns)", n_unknowns);
+        }
         break;
       case LinearSolver::simplicial_ldlt:
         info.solver = "simplicial LDLT (Eigen)";

@@ -26,6 +26,7 @@ struct SolveOptions {
 struct SolveInfo {
   bool ok = false;
   std::string message;          ///< why it failed, when !ok
+  bool out_of_memory = false;   ///< the failure was memory running out, not the matrix
   std::string solver;           ///< name of the linear solver used
   int n_unknowns = 0;
   double assemble_seconds = 0.0;
