@@ -226,6 +226,26 @@ void validate_cross_section(CrossSection& section) {
                       "use the design temperatures of the assessment, e.g. 20 °C inside and -5 °C outside");
   }
 
+  // Conductivities spanning more than ten orders of magnitude leave the conduction matrix too
+  // ill-conditioned for double precision to close the energy balance (measured: 1e10 solves a
+  // layered wall exactly, 1e12 does not); real materials span about 1e5 (copper to aerogel).
+  constexpr double max_conductivity_ratio = 1e10;
+  const Material* lowest = nullptr;
+  const Material* highest = nullptr;
+  for (const Region& r : section.regions) {
+    const Material& m = section.materials[r.material];
+    if (!lowest || m.conductivity < lowest->conductivity) lowest = &m;
+    if (!highest || m.conductivity > highest->conductivity) highest = &m;
+  }
+  if (lowest && highest->conductivity > max_conductivity_ratio * lowest->conductivity)
+    throw_input_error(highest->where, fmt::format("material '{}'", highest->id),
+                      fmt::format("λ {:g} W/(m·K) is {:.2g} times the λ {:g} of material '{}', more than the {:g} a "
+                                  "calculation in double precision can resolve", highest->conductivity,
+                                  highest->conductivity / lowest->conductivity, lowest->conductivity, lowest->id,
+                                  max_conductivity_ratio),
+                      "check the two values (a unit slip?); model a near-perfect conductor or insulator with a λ "
+                      "that is merely very large or very small, e.g. 1e4 or 1e-4 W/(m·K)");
+
   // ψ in a requested dimension system needs every flanking element's length in it.
   for (DimensionSystem system : section.requested_systems)
     for (const FlankingElement& f : section.flanking_elements)

@@ -112,3 +112,14 @@ TEST_CASE("the three linear solvers agree to 1e-8 K") {
     CHECK(worst < 1e-8);
   }
 }
+
+TEST_CASE("layers whose λ span ten orders of magnitude (1e-5 to 1e5) still give Φ = ΔT/(Rsi + Σd/λ + Rse) to 1e-6") {
+  // ISO 6946 clause 6, layers in series (exact for the finite-volume solution); the widest span
+  // the reader accepts (docs/detail-format.md, Limits).
+  const std::string wall = test::layered_wall(
+      {{"a", 1e-5, 100}, {"b", 0.1, 100}, {"c", 1.0, 100}, {"d", 100.0, 100}, {"e", 1e5, 100}}, 1000, 20, 0);
+  const Calculation calc = calculate(parse_detail_text(wall, "contrast.xml"), {});
+  const double resistance = 0.13 + 0.04 + 0.1 / 1e-5 + 0.1 / 0.1 + 0.1 / 1.0 + 0.1 / 100.0 + 0.1 / 1e5;
+  CHECK(*calc.heat_loss.field.coupling_2d == doctest::Approx(1.0 / resistance).epsilon(1e-6));
+  CHECK(std::abs(calc.heat_loss.field.balance.relative) < 1e-4);  // ISO 10211 energy-balance criterion
+}
