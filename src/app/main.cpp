@@ -369,6 +369,10 @@ int main(int argc, char** argv) {
   } catch (const InputError& e) {
     fmt::print(stderr, "edgeflux: error: {}\n", e.what());
     return 2;
+  } catch (const std::bad_alloc&) {
+    fmt::print(stderr, "edgeflux: failed: the memory ran out (meshing or solving a section this fine needs more): lower "
+                       "the density or the accuracy target, or run on a machine with more memory\n");
+    return 3;
   } catch (const std::exception& e) {
     fmt::print(stderr, "edgeflux: failed: {}\n", e.what());
     return 3;

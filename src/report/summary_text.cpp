@@ -79,7 +79,13 @@ std::string summary_text(const CrossSection& section, const Calculation& calc) {
     line(fmt::format("  θsi,min = {:.2f}{} °C at {} on surface '{}'", m.temperature, bar(conv.min_surface_temperature, ".2f"),
                      at(m.at), section.surfaces[m.surface].name));
   } else {
-    line("  no interior surface (mark the room environment side=\"interior\" to get θsi,min and fRsi)");
+    // Say which of the two reasons holds: no interior environment, or only fixed temperatures facing it.
+    bool interior_surface = false;
+    for (const Surface& s : section.surfaces)
+      interior_surface = interior_surface || section.environments[s.environment].side == Side::interior;
+    line(interior_surface ? "  no θsi,min: every surface facing the interior is a fixed temperature (resistance 0), which the "
+                            "search for the coldest surface leaves out; give those surfaces their Rsi to get θsi,min and fRsi"
+                          : "  no interior surface (mark the room environment side=\"interior\" to get θsi,min and fRsi)");
   }
   if (junction.temperature_factor) line(fmt::format("  fRsi = {:.3f}", *junction.temperature_factor));
 

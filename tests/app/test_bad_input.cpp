@@ -159,3 +159,14 @@ TEST_CASE("a folder given as the detail file gets its own message") {
   CHECK(run.exit_code == 2);
   CHECK(run.output.find("detail file: is a folder") != std::string::npos);
 }
+
+TEST_CASE("with fixed temperatures on every interior surface, the summary says why there is no θsi,min") {
+  const fs::path input = scratch_folder() / "fixed.xml";
+  std::ofstream(input) << edgeflux::test::detail_xml(replace(replace(good_body, "resistance=\"rsi-horizontal\"", "resistance=\"0\""),
+                                                             "resistance=\"rse\"", "resistance=\"0\""));
+  const Run run = run_program("solve -q '" + input.string() + "'");
+  CHECK(run.exit_code == 0);
+  CHECK(run.output.find("every surface facing the interior is a fixed temperature") != std::string::npos);
+  CHECK(run.output.find("mark the room environment") == std::string::npos);  // it is marked
+  fs::remove(input);
+}
