@@ -3,17 +3,20 @@
 //   1  usage error        3  numerical failure or internal error
 //   4  the conformity check found a value outside the ISO 10211 tolerance
 #include <CLI/CLI.hpp>
+#include <sys/resource.h>
 #include <fmt/format.h>
 #include <fmt/ranges.h>
 
 #include <algorithm>
 #include <cmath>
+#include <cstdint>
 #include <cstdio>
 #include <cerrno>
 #include <cstdlib>
 #include <cstring>
 #include <fstream>
 #include <iostream>
+#include <optional>
 #include <sstream>
 
 #include "app/output_writer.h"
@@ -185,6 +188,19 @@ int run_import(const ImportArgs& args) {
   return 0;
 }
 
+/// Solving needs this much address space: below it the BLAS library's buffer allocation (128 MB
+/// per thread) retries for ever instead of failing (measured: 450 MB hangs, 500 MB solves the demo).
+constexpr std::uint64_t min_address_space_bytes = 640ull << 20;
+
+/// A clear failure instead of a hang when `ulimit -v` leaves too little address space to solve.
+std::optional<std::string> address_space_too_small() {
+  rlimit limit{};
+  if (::getrlimit(RLIMIT_AS, &limit) != 0 || limit.rlim_cur == RLIM_INFINITY || limit.rlim_cur >= min_address_space_bytes)
+    return std::nullopt;
+  return fmt::format("the process may use only {} MB of address space (ulimit -v); solving needs at least {} MB: raise "
+                     "the limit", limit.rlim_cur >> 20, min_address_space_bytes >> 20);
+}
+
 /// The exit code after making sure the printed results reached standard output: a full disk or
 /// a closed pipe there is an error, not a silent empty file.
 int with_output_flushed(int code) {
@@ -319,6 +335,11 @@ int main(int argc, char** argv) {
     const int code = app.exit(e);  // prints the help or the usage message
     return code == 0 ? 0 : 1;
   }
+  if (*solve_cmd || *sweep_cmd || *compare_cmd || *conformity_cmd)
+    if (const auto problem = address_space_too_small()) {
+      fmt::print(stderr, "edgeflux: failed: {}\n", *problem);
+      return 3;
+    }
   try {
     if (*solve_cmd) return with_output_flushed(run_solve(solve));
     if (*import_cmd) return with_output_flushed(run_import(import_args));

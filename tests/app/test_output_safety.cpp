@@ -130,3 +130,11 @@ TEST_CASE("under a memory limit, a refinement that runs out of memory keeps the 
   if (run.output.find("the memory ran out") != std::string::npos)
     CHECK(run.output.find("did not reach the accuracy target") != std::string::npos);
 }
+
+TEST_CASE("under a memory limit too small to solve at all, the run fails at once with the limit named, never hangs") {
+  // 400 MB of address space: the BLAS library's buffer allocation would retry for ever.
+  const auto run = edgeflux::test::run_shell("ulimit -v 409600; timeout 60 " + std::string(EDGEFLUX_BINARY) + " solve -q '" +
+                                             edgeflux::test::source_path("examples/intermediate-floor.xml") + "'");
+  CHECK(run.exit_code == 3);
+  CHECK(run.output.find("may use only 400 MB of address space") != std::string::npos);
+}
