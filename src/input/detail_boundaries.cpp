@@ -211,13 +211,15 @@ void DetailReader::read_climate(const XMLElement* e) {
   c.where = where(e);
   c.interior_temperature = required_number(e, "interior-temperature");
   c.exterior_temperature = required_number(e, "exterior-temperature");
-  if (e->Attribute("interior-humidity")) {
-    const double rh = required_number(e, "interior-humidity");
+  // A relative humidity in percent, as a fraction.
+  auto humidity = [&](const char* attribute) {
+    const double rh = required_number(e, attribute);
     if (rh < 0.0 || rh > 100.0)
-      throw_input_error(c.where, "<climate>", fmt::format("interior-humidity {} % is outside 0–100 %", rh),
+      throw_input_error(c.where, "<climate>", fmt::format("{} {} % is outside 0–100 %", attribute, rh),
                         "give the relative humidity in percent");
-    c.interior_relative_humidity = rh / 100.0;
-  }
+    return rh / 100.0;
+  };
+  if (e->Attribute("interior-humidity")) c.interior_relative_humidity = humidity("interior-humidity");
   if (e->Attribute("humidity-class")) {
     const double cls = required_number(e, "humidity-class");
     if (cls != std::floor(cls) || cls < 1 || cls > 5)
@@ -225,13 +227,7 @@ void DetailReader::read_climate(const XMLElement* e) {
                         "use an ISO 13788 internal humidity class 1–5");
     c.humidity_class = static_cast<int>(cls);
   }
-  if (e->Attribute("exterior-humidity")) {
-    const double rh = required_number(e, "exterior-humidity");
-    if (rh < 0.0 || rh > 100.0)
-      throw_input_error(c.where, "<climate>", fmt::format("exterior-humidity {} % is outside 0–100 %", rh),
-                        "give the relative humidity in percent");
-    c.exterior_relative_humidity = rh / 100.0;
-  }
+  if (e->Attribute("exterior-humidity")) c.exterior_relative_humidity = humidity("exterior-humidity");
   if (c.interior_relative_humidity.has_value() == c.humidity_class.has_value())
     throw_input_error(c.where, "<climate>", "give exactly one of interior-humidity and humidity-class",
                       "e.g. interior-humidity=\"50\" (percent) or humidity-class=\"3\"");
