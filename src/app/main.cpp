@@ -49,6 +49,8 @@ struct SolveArgs {
   bool quiet = false;
   bool fixed_mesh = false;
   std::vector<std::string> parameter_settings;  ///< "name=value"
+  std::string carry_forward;                    ///< dimension system word, overrides the file
+  std::string appendices = "all";
   AccuracyTarget target;
   OutputRequest outputs;  ///< --report, --svg-dir, --png-dir, --vtu, --surface-csv
 };
@@ -78,6 +80,19 @@ std::string read_whole_file(const std::string& path) {
   return text.str();
 }
 
+/// --carry-forward: the system must have a length for every flanking element, as in the file.
+void carry_forward(CrossSection& section, DimensionSystem system) {
+  if (section.flanking_elements.empty())
+    throw_input_error({"command line", 0}, "--carry-forward", fmt::format("names a dimension system, but {} has no flanking elements", section.file),
+                      "add <flanking-elements> to the detail (their U and lengths define ψ), or leave out --carry-forward");
+  for (const FlankingElement& f : section.flanking_elements)
+    if (!f.length[static_cast<int>(system)])
+      throw_input_error({"command line", 0}, "--carry-forward " + std::string(system == DimensionSystem::overall_internal ? "overall-internal" : dimension_system_name(system)),
+                        fmt::format("flanking element '{}' has no {} length ({}:{})", f.id, dimension_system_name(system), f.where.file, f.where.line),
+                        "choose a system the detail gives lengths for, or add that length to the element");
+  section.carried_forward = system;
+}
+
 int run_solve(const SolveArgs& args) {
   CalculationOptions options;
   if (args.density > 0.0) options.density = args.density;
@@ -90,8 +105,8 @@ int run_solve(const SolveArgs& args) {
   options.adaptive = !args.fixed_mesh;
   options.target = args.target;
 
-  const CrossSection section =
-      read_detail_file(args.detail_file, parse_settings(args.parameter_settings), arc_tolerance_for(options.target));
+  CrossSection section = read_detail_file(args.detail_file, parse_settings(args.parameter_settings), arc_tolerance_for(options.target));
+  if (!args.carry_forward.empty()) carry_forward(section, *dimension_system_from_word(args.carry_forward));
   const Calculation calc = calculate(section, options);
   // Every output is built in memory first, so a failure leaves no file behind.
   std::vector<OutputFile> files;
@@ -101,7 +116,9 @@ int run_solve(const SolveArgs& args) {
     // The report embeds the detail file and carries the validation of the very build that made it.
     provenance = {read_whole_file(args.detail_file), report_timestamp(), iso10211_conformity()};
   }
-  for (OutputFile& f : build_output_files(section, calc, args.outputs, provenance)) files.push_back(std::move(f));
+  OutputRequest outputs = args.outputs;
+  outputs.report_appendices = args.appendices == "all";
+  for (OutputFile& f : build_output_files(section, calc, outputs, provenance)) files.push_back(std::move(f));
   check_output_paths(files, {args.detail_file});  // every path is checked before the first file is written
   fmt::print("{}", summary_text(section, calc));
   write_output_files(files);
@@ -270,6 +287,12 @@ int main(int argc, char** argv) {
       ->check(finite_range(1e-6, 1.0));
   solve_cmd->add_option("--set", solve.parameter_settings,
                         "Override a <parameter> of the detail file, e.g. --set insulation_thickness=160 (repeatable)");
+  solve_cmd->add_option("--carry-forward", solve.carry_forward,
+                        "Dimension system of the energy calculation the ψ goes into; marks that ψ (overrides the file)")
+      ->check(CLI::IsMember({"internal", "overall-internal", "external"}));
+  solve_cmd->add_option("--appendices", solve.appendices,
+                        "all (default): the report has the junction sheet and its appendices; none: the sheet alone")
+      ->check(CLI::IsMember({"all", "none"}));
   solve_cmd->add_flag("--fixed-mesh", solve.fixed_mesh,
                       "Solve once on the mesh of --density instead of refining to the accuracy targets");
 

@@ -5,6 +5,7 @@
 #include <limits>
 #include <optional>
 #include <string>
+#include <string_view>
 #include <vector>
 
 #include "core/error.h"
@@ -17,6 +18,10 @@ struct Material {
   double conductivity = 0.0;  ///< λ, W/(m·K), > 0
   std::string source;         ///< where the value comes from (standard and table, or "declared")
   std::string library_id;     ///< entry of the material library it was taken from, if any
+  std::optional<double> density;  ///< kg/m³, from the library entry when its λ is used
+  /// "normative" (a tabulated design value), "typical" (a typical declared value, to be replaced by
+  /// the product's own), or empty when λ is given in the detail file.
+  std::string basis;
   SourceLocation where;
 };
 
@@ -77,6 +82,14 @@ inline const char* dimension_system_name(DimensionSystem s) {
   return s == DimensionSystem::internal ? "internal" : s == DimensionSystem::overall_internal ? "overall internal" : "external";
 }
 
+/// The system named by its file and command-line word ("internal", "overall-internal", "external").
+inline std::optional<DimensionSystem> dimension_system_from_word(std::string_view word) {
+  if (word == "internal") return DimensionSystem::internal;
+  if (word == "overall-internal") return DimensionSystem::overall_internal;
+  if (word == "external") return DimensionSystem::external;
+  return std::nullopt;
+}
+
 struct FlankingElement {
   std::string id;
   Point cut_off_start, cut_off_end;  ///< m, the straight adiabatic edge crossing the element
@@ -119,6 +132,21 @@ struct MeshSettings {
   double density = 1.0;  ///< multiplies the number of elements along every length
 };
 
+/// Who and what a junction sheet is about, as the detail file's <record> states it; every field
+/// may be empty. Shown in the running header and the title block of every report page.
+struct JunctionRecord {
+  std::string reference;   ///< junction reference in the project, e.g. "J03"
+  std::string project, client, site;
+  std::string drawing;     ///< drawing reference the section is taken from
+  std::string revision;    ///< revision of this assessment (or of the drawing)
+  std::string assessor, checker;
+  std::string date;        ///< date of the assessment as the user writes it
+  bool empty() const {
+    return reference.empty() && project.empty() && client.empty() && site.empty() && drawing.empty() && revision.empty() &&
+           assessor.empty() && checker.empty() && date.empty();
+  }
+};
+
 struct CrossSection {
   std::string title;
   std::string notes;
@@ -133,6 +161,10 @@ struct CrossSection {
   std::vector<Probe> probes;
   std::vector<FlankingElement> flanking_elements;
   std::vector<DimensionSystem> requested_systems;  ///< ψ must be reported in these (may be empty)
+  /// The dimension system of the energy calculation the ψ is carried forward into (marked in
+  /// every output); from <flanking-elements carry-forward> or --carry-forward.
+  std::optional<DimensionSystem> carried_forward;
+  JunctionRecord record;
   SourceLocation flanking_where;                   ///< the <flanking-elements> element
   std::optional<Climate> climate;
   MeshSettings mesh;

@@ -246,8 +246,14 @@ void validate_cross_section(CrossSection& section) {
                       "check the two values (a unit slip?); model a near-perfect conductor or insulator with a λ "
                       "that is merely very large or very small, e.g. 1e4 or 1e-4 W/(m·K)");
 
-  // ψ in a requested dimension system needs every flanking element's length in it.
-  for (DimensionSystem system : section.requested_systems)
+  // ψ in a requested dimension system needs every flanking element's length in it; so does the
+  // system the ψ is carried forward in.
+  std::vector<DimensionSystem> needed = section.requested_systems;
+  if (section.carried_forward) needed.push_back(*section.carried_forward);
+  if (section.carried_forward && section.flanking_elements.empty())
+    throw_input_error(section.flanking_where, "<flanking-elements>", "names a system to carry ψ forward in, but no flanking element",
+                      "add the flanking elements (their U and lengths define ψ), or remove carry-forward");
+  for (DimensionSystem system : needed)
     for (const FlankingElement& f : section.flanking_elements)
       if (!f.length[static_cast<int>(system)])
         throw_input_error(f.where, fmt::format("flanking element '{}'", f.id),

@@ -129,8 +129,15 @@ void DetailReader::read_probe(const XMLElement* e) {
 }
 
 void DetailReader::read_flanking_elements(const XMLElement* parent) {
-  allow_attributes(parent, {"dimension-systems"});
+  allow_attributes(parent, {"dimension-systems", "carry-forward"});
   section_.flanking_where = where(parent);
+  if (const char* carried = parent->Attribute("carry-forward")) {
+    const auto system = dimension_system_from_word(carried);
+    if (!system)
+      throw_input_error(where(parent), "<flanking-elements>", fmt::format("carry-forward dimension system \"{}\" is not known", carried),
+                        "write one of: internal overall-internal external (the system of the energy calculation the ψ goes into)");
+    section_.carried_forward = *system;
+  }
   if (const char* systems = parent->Attribute("dimension-systems")) {
     std::istringstream in(systems);
     for (std::string word; in >> word;) {

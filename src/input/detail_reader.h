@@ -173,6 +173,8 @@ class DetailReader {
   void read_climate(const XMLElement* e);
 
   void read_mesh(const XMLElement* e);
+  /// <record>: junction reference, project, client, drawing and revision, assessor, checker, date.
+  void read_record(const XMLElement* e);
 
   void resolve_references();
 

@@ -127,10 +127,13 @@ void DetailReader::read_material(const XMLElement* e) {
     m.library_id = found->id;
     m.conductivity = found->conductivity;
     m.source = found->source;
+    m.density = found->density;
+    m.basis = found->basis;
     if (e->Attribute("conductivity")) {
       m.conductivity = required_number(e, "conductivity");
       m.source = optional_text(e, "source", "") ;
       if (m.source.empty()) m.source = fmt::format("λ set in the detail file (library entry {}: {})", found->id, found->source);
+      m.basis.clear();  // the detail's own λ: its basis is what its source says
     } else if (e->Attribute("source")) {
       m.source = required_text(e, "source");
     }

@@ -125,14 +125,41 @@ CrossSection DetailReader::read(const std::string& raw) {
     else if (name == "flanking-elements") read_flanking_elements(e);
     else if (name == "climate") read_climate(e);
     else if (name == "mesh") read_mesh(e);
+    else if (name == "record") read_record(e);
     else
       throw_input_error(where(e), fmt::format("<{}>", name), "this element is not part of the detail format",
-                        "use title, notes, parameters, materials, regions, environments, boundaries, probes, "
+                        "use title, notes, record, parameters, materials, regions, environments, boundaries, probes, "
                         "flanking-elements, climate or mesh (see docs/detail-format.md)");
   }
   resolve_references();
   validate_cross_section(section_);
   return std::move(section_);
+}
+
+void DetailReader::read_record(const XMLElement* e) {
+  if (e->PreviousSiblingElement("record"))
+    throw_input_error(where(e), "<record>", "is given twice", "keep one <record> with all its attributes");
+  allow_attributes(e, {"reference", "project", "client", "site", "drawing", "revision", "assessor", "checker", "date"});
+  if (e->FirstChildElement() || (e->GetText() && std::string(e->GetText()).find_first_not_of(" \t\r\n") != std::string::npos))
+    throw_input_error(where(e), "<record>", "holds content, but takes only attributes", "write e.g. <record reference=\"J03\" project=\"...\"/>");
+  // Record fields go into a one-line running header: keep them to what a title block holds.
+  auto field = [&](const char* attribute) {
+    std::string text = optional_text(e, attribute, "");
+    if (text.size() > 200)
+      throw_input_error(where(e), "<record>", fmt::format("attribute \"{}\" is {} characters long; a record field holds at most 200", attribute, text.size()),
+                        "shorten it; longer explanations belong in <notes>");
+    return text;
+  };
+  JunctionRecord& r = section_.record;
+  r.reference = field("reference");
+  r.project = field("project");
+  r.client = field("client");
+  r.site = field("site");
+  r.drawing = field("drawing");
+  r.revision = field("revision");
+  r.assessor = field("assessor");
+  r.checker = field("checker");
+  r.date = field("date");
 }
 
 void DetailReader::reject_undefined_entities(const std::string& text) const {

@@ -1,6 +1,7 @@
 // Required fRsi from the ISO 13788 criterion and a national minimum, compared with the detail's fRsi.
 #include "physics/moisture_verdict.h"
 
+#include <algorithm>
 #include <array>
 #include <cmath>
 #include <stdexcept>
@@ -122,6 +123,9 @@ MoistureAssessment assess_surface_moisture(const MoistureInput& input) {
 
   const double iso_required =
       input.is_glazing_or_frame ? a.condensation_temperature_factor : a.mould_temperature_factor;
+  a.actual_temperature_factor = f_actual;
+  a.criteria.push_back({input.is_glazing_or_frame ? "ISO 13788, 100 % surface RH" : "ISO 13788, 80 % surface RH",
+                        iso_required, f_actual >= iso_required, true});
   a.required_temperature_factor = iso_required;
   if (input.is_glazing_or_frame) {
     a.governing_basis = RequirementBasis::condensation_criterion;
@@ -130,13 +134,18 @@ MoistureAssessment assess_surface_moisture(const MoistureInput& input) {
     a.governing_basis = RequirementBasis::mould_criterion;
     a.governing_requirement = "ISO 13788 mould criterion, surface RH at most 80 %";
   }
-  if (rule->minimum && *rule->minimum > iso_required) {
-    a.required_temperature_factor = *rule->minimum;
-    a.governing_basis = RequirementBasis::national_rule;
-    a.governing_requirement = fmt::format("{} minimum fRsi {:.2f}", rule->source, *rule->minimum);
+  if (rule->minimum) {
+    // A national minimum is its own row even when the ISO criterion is the stricter one.
+    const bool national_governs = *rule->minimum > iso_required;
+    a.criteria.push_back({fmt::format("{} minimum", rule->source), *rule->minimum, f_actual >= *rule->minimum, national_governs});
+    if (national_governs) {
+      a.criteria.front().governs = false;
+      a.required_temperature_factor = *rule->minimum;
+      a.governing_basis = RequirementBasis::national_rule;
+      a.governing_requirement = fmt::format("{} minimum fRsi {:.2f}", rule->source, *rule->minimum);
+    }
   }
 
-  a.actual_temperature_factor = f_actual;
   a.surface_temperature = theta_e + f_actual * (theta_i - theta_e);
   a.surface_relative_humidity =
       a.interior_vapour_pressure / saturation_vapour_pressure(a.surface_temperature);
@@ -144,26 +153,34 @@ MoistureAssessment assess_surface_moisture(const MoistureInput& input) {
   a.passes = f_actual >= a.required_temperature_factor;
   a.margin = f_actual - a.required_temperature_factor;
 
+  std::string statements;
+  for (const CriterionCheck& c : a.criteria) statements += (statements.empty() ? "" : "; ") + criterion_statement(c, f_actual);
   const std::string climate = fmt::format(
       "at {:.1f} °C and {:.0f} % RH inside and {:.1f} °C outside the coldest surface reaches "
       "{:.1f} °C and {:.0f} % surface RH",
       theta_i, 100.0 * a.interior_relative_humidity, theta_e, a.surface_temperature,
       100.0 * a.surface_relative_humidity);
   if (a.passes) {
-    a.verdict = fmt::format("Pass: fRsi {:.3f} meets the required {:.3f} ({}) with a margin of "
-                            "{:.3f}; {}.",
-                            f_actual, a.required_temperature_factor, a.governing_requirement,
-                            a.margin, climate);
+    a.verdict = fmt::format("{}; {}.", statements, climate);
   } else {
     const char* consequence =
         f_actual >= iso_required ? "so the ISO 13788 criterion is met but the national minimum is not"
         : input.is_glazing_or_frame ? "so surface condensation is expected"
                                     : "so mould growth is possible";
-    a.verdict = fmt::format("Fail: fRsi {:.3f} is below the required {:.3f} ({}) by {:.3f}; {}, {}.",
-                            f_actual, a.required_temperature_factor, a.governing_requirement,
-                            -a.margin, climate, consequence);
+    a.verdict = fmt::format("{}; {}, {}.", statements, climate, consequence);
   }
   return a;
+}
+
+std::string criterion_statement(const CriterionCheck& check, double temperature_factor) {
+  return fmt::format("criterion {}: fRsi {:.3f} {} fRsi,min {:.3f} ({})", check.met ? "met" : "NOT met", temperature_factor,
+                     check.met ? "≥" : "<", check.required, check.criterion);
+}
+
+std::string criteria_outcome(const std::vector<CriterionCheck>& checks) {
+  const auto failed = std::count_if(checks.begin(), checks.end(), [](const CriterionCheck& c) { return !c.met; });
+  if (failed == 0) return checks.size() == 1 ? "criterion met" : "all criteria met";
+  return failed == 1 ? "criterion NOT met" : fmt::format("{} criteria NOT met", failed);
 }
 
 std::vector<std::string> standard_cautions() {

@@ -47,6 +47,22 @@ enum class RequirementBasis {
   national_rule,           ///< the minimum of the chosen rule preset
 };
 
+/// One requirement checked on its own: the ISO 13788 criterion, or a national minimum.
+struct CriterionCheck {
+  std::string criterion;  ///< what asks for it, e.g. "ISO 13788, 80 % surface RH" or "DIN 4108-2 minimum"
+  double required = 0;    ///< fRsi,min it sets
+  bool met = false;       ///< fRsi ≥ fRsi,min (meeting it exactly counts as met)
+  bool governs = false;   ///< the highest of the requirements checked
+};
+
+/// The words every output uses for one checked criterion, e.g.
+/// "criterion met: fRsi 0.945 ≥ fRsi,min 0.705 (ISO 13788, 80 % surface RH)".
+std::string criterion_statement(const CriterionCheck& check, double temperature_factor);
+
+/// The words for a set of checks as a whole: "all criteria met" / "criterion NOT met" /
+/// "2 criteria NOT met".
+std::string criteria_outcome(const std::vector<CriterionCheck>& checks);
+
 /// Outcome of assess_surface_moisture. Pressures in Pa, temperatures in °C, factors dimensionless.
 struct MoistureAssessment {
   double interior_vapour_pressure;             ///< pi, Pa
@@ -59,10 +75,11 @@ struct MoistureAssessment {
   double required_temperature_factor;          ///< max(governing ISO 13788 value, rule minimum)
   RequirementBasis governing_basis;            ///< which of them set the requirement
   std::string governing_requirement;           ///< the same, as text for reports
+  std::vector<CriterionCheck> criteria;        ///< ISO 13788, then the national minimum if one is chosen
   double actual_temperature_factor;            ///< fRsi of the detail, as given
   double surface_temperature;                  ///< θsi = θe + fRsi·(θi − θe) in this climate, °C
   double surface_relative_humidity;            ///< pi/psat(θsi) at that surface, fraction
-  bool passes;                                 ///< fRsi ≥ required fRsi
+  bool passes;                                 ///< every criterion met (fRsi ≥ required fRsi)
   double margin;                               ///< fRsi − required fRsi; ≥ 0 when it passes
   std::string verdict;                         ///< one sentence for the report
 };

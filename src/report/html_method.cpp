@@ -15,7 +15,7 @@ std::string method_section(const CrossSection& section, const Calculation& calc,
   const SolveInfo& info = calc.heat_loss.info;
   std::string h;
   auto add = [&](const std::string& s) { h += s; };
-  add("<section class=\"page-break\" id=\"method\">\n<h2>Method and validation</h2>\n");
+  add("<section class=\"appendix page-break\" id=\"method\">\n<h2>Appendix C — Method, validation and provenance</h2>\n");
   add(fmt::format(
       "<p>Steady-state two-dimensional heat conduction, solved by vertex-centred finite volumes on a {} mesh (graded constrained Delaunay "
       "triangulation, or a rectilinear grid for rectilinear sections): each node's control volume is bounded by the medians of the triangles "

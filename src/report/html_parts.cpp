@@ -11,19 +11,8 @@
 
 namespace edgeflux::html {
 
-// Numbers in tables use the ASCII minus, so they paste into spreadsheets as numbers.
-std::string fixed(double v, int decimals) {
-  if (std::abs(v) < 0.5 * std::pow(10.0, -decimals)) v = 0.0;
-  return fmt::format("{:.{}f}", v, decimals);
-}
-std::string signed_fixed(double v, int decimals) {
-  if (std::abs(v) < 0.5 * std::pow(10.0, -decimals)) v = 0.0;
-  return fmt::format("{:+.{}f}", v, decimals);
-}
-
-
 std::string user_point(const CrossSection& section, Point p) {
-  return fmt::format("({}, {}) {}", fixed(p.x / section.metres_per_unit, 1), fixed(p.y / section.metres_per_unit, 1), escape(section.unit));
+  return escape(point_text(p, section.metres_per_unit, section.unit));
 }
 
 
@@ -31,18 +20,6 @@ std::string user_point(const CrossSection& section, Point p) {
 std::string key_card(const std::string& label, const std::string& value, const std::string& unit, const std::string& detail) {
   return fmt::format("<div class=\"card\"><div class=\"label\">{}</div><div class=\"value\">{} <span class=\"unit\">{}</span></div>{}</div>\n", label, value,
                      unit, detail.empty() ? "" : "<div class=\"detail\">" + detail + "</div>");
-}
-
-/// An estimated error in plain decimals, one significant digit rounded up, at most two digits finer
-/// than the value it belongs to (shown with `decimals`): "0.00003"; smaller errors show as one unit
-/// of that finest digit, an upper bound.
-std::string error_text(double error, int decimals) {
-  const int finest = decimals + 2;
-  const double unit = std::pow(10.0, -finest);
-  if (!(error >= unit)) return fmt::format("{:.{}f}", unit, finest);  // an upper bound at the finest digit shown
-  const int d = std::clamp(static_cast<int>(-std::floor(std::log10(error))), decimals, finest);
-  const double scale = std::pow(10.0, d);
-  return fmt::format("{:.{}f}", std::ceil(error * scale - 1e-9) / scale, d);
 }
 
 /// " ± 0.00003" for a value with an estimated discretisation error, nothing without one.
@@ -63,58 +40,80 @@ std::string climate_text(const Climate& c) {
 /// ISO 10211 doubling check; or, for a single fixed mesh, how to get that evidence.
 
 const char* const report_css = R"CSS(
-:root { --ink: #1d232a; --muted: #56606b; --rule: #d3d8dd; --soft: #f4f6f8; --accent: #0b5a8a; --pass: #1b6e3a; --fail: #a4231c; --warn: #8a5a00; }
+:root { --ink: #1d232a; --muted: #56606b; --rule: #d3d8dd; --soft: #f4f6f8; --accent: #0b5a8a; --met: #1b6e3a; --notmet: #a4231c; --warn: #8a5a00; }
 * { box-sizing: border-box; }
 html { background: #e9ecef; }
 body { font-family: "DejaVu Sans", "Liberation Sans", Arial, Helvetica, sans-serif; color: var(--ink); background: #fff;
-       max-width: 200mm; margin: 0 auto; padding: 12mm 10mm 16mm; font-size: 10pt; line-height: 1.45; }
-h1 { font-size: 17pt; margin: 0 0 2mm; line-height: 1.25; }
-h2 { font-size: 12.5pt; margin: 8mm 0 2.5mm; padding-bottom: 1mm; border-bottom: 0.4mm solid var(--ink); }
-h3 { font-size: 10.5pt; margin: 5mm 0 1.5mm; }
-p { margin: 1.5mm 0; }
-.kicker { text-transform: uppercase; letter-spacing: 0.08em; font-size: 8.5pt; color: var(--accent); font-weight: bold; margin-bottom: 1mm; }
-.notes { color: #333; font-style: italic; }
+       max-width: 200mm; margin: 0 auto; padding: 12mm 10mm 16mm; font-size: 9.5pt; line-height: 1.4; overflow-wrap: anywhere; }
+h1 { font-size: 13.5pt; margin: 0 0 1mm; line-height: 1.2; }
+h1 .ref { color: var(--accent); }
+h2 { font-size: 12pt; margin: 6mm 0 2mm; padding-bottom: 1mm; border-bottom: 0.4mm solid var(--ink); }
+h3 { font-size: 10pt; margin: 3mm 0 1mm; }
+p { margin: 1.2mm 0; }
+.kicker { text-transform: uppercase; letter-spacing: 0.08em; font-size: 8pt; color: var(--accent); font-weight: bold; margin-bottom: 1mm; }
+.notes { color: #333; font-style: italic; margin: 0 0 1.5mm; }
+.title-block { border: 0.4mm solid var(--ink); padding: 2mm 3mm; margin-bottom: 2mm; }
+.title-block .notes { font-size: 8pt; }
+.record { display: grid; grid-template-columns: repeat(4, 1fr); gap: 1mm 3mm; margin: 1.5mm 0 0; font-size: 8pt; }
+.record div { min-width: 0; }
+.record .wide { grid-column: 1 / -1; color: var(--muted); }
+.record dt { font-weight: bold; color: var(--muted); display: inline; } .record dt::after { content: ": "; }
+.record dd { margin: 0; display: inline; }
+.blank { color: #aab; }
 .meta { display: grid; grid-template-columns: max-content 1fr; gap: 0.5mm 4mm; font-size: 8.5pt; color: var(--muted); margin: 3mm 0 0; }
 .meta dt { font-weight: bold; } .meta dd { margin: 0; word-break: break-all; }
-.key { display: grid; grid-template-columns: repeat(3, 1fr); gap: 2.5mm; margin: 3mm 0; }
-.card { border: 0.3mm solid var(--rule); border-radius: 1.2mm; padding: 2.2mm 3mm; background: var(--soft); break-inside: avoid; }
-.card .label { font-size: 8.5pt; color: var(--muted); }
-.card .value { font-size: 15pt; font-weight: bold; }
-.card .pm { font-size: 10pt; font-weight: normal; }
-.card .unit { font-size: 9pt; font-weight: normal; color: var(--muted); }
-.card .detail { font-size: 8.5pt; color: var(--muted); }
-.verdict { border-left: 2mm solid var(--pass); background: #eef7f1; padding: 2.5mm 4mm; margin: 3mm 0; break-inside: avoid; }
-.verdict.fails { border-left-color: var(--fail); background: #fbeeed; }
-.badge { display: inline-block; font-weight: bold; color: #fff; background: var(--pass); border-radius: 1mm; padding: 0.3mm 2mm; margin-right: 2mm; }
-.fails .badge { background: var(--fail); }
-.cautions { border: 0.5mm solid var(--warn); background: #fff8e6; padding: 2.5mm 4mm; margin: 4mm 0; break-inside: avoid; }
-.cautions h3 { margin-top: 0; color: var(--warn); }
-.cautions ul, .warnings ul { margin: 1mm 0 0 5mm; padding: 0; }
-.warnings { border: 0.5mm solid var(--fail); background: #fdf1f0; padding: 2.5mm 4mm; margin: 4mm 0; break-inside: avoid; }
-.warnings h3 { margin-top: 0; color: var(--fail); }
-table { border-collapse: collapse; width: 100%; margin: 2mm 0 3mm; font-size: 8.8pt; break-inside: avoid; }
-th, td { border-bottom: 0.25mm solid var(--rule); padding: 1mm 2mm; text-align: left; vertical-align: top; }
-th { background: var(--soft); font-weight: bold; border-bottom: 0.4mm solid #9aa3ad; }
-td.nowrap { white-space: nowrap; }
-td.num, th.num { text-align: right; font-variant-numeric: tabular-nums; white-space: nowrap; }
-caption { caption-side: top; text-align: left; font-weight: bold; padding: 0 0 1mm; }
-figure { margin: 4mm 0; break-inside: avoid; }
+table { border-collapse: collapse; width: 100%; margin: 1.5mm 0 2.5mm; font-size: 8.3pt; break-inside: avoid; }
+th, td { border-bottom: 0.25mm solid var(--rule); padding: 0.7mm 1.5mm; text-align: left; vertical-align: top; }
+th { background: var(--soft); font-weight: bold; border-bottom: 0.4mm solid #9aa3ad; overflow-wrap: normal; hyphens: auto; }
+td.num, th.num { text-align: right; font-variant-numeric: tabular-nums; }
+td.num { white-space: nowrap; }
+caption { caption-side: top; text-align: left; font-weight: bold; padding: 0 0 0.8mm; font-size: 9pt; }
+table.results th { width: 30%; background: none; border-bottom: 0.25mm solid var(--rule); font-weight: normal; }
+table.results td:last-child { font-size: 7.6pt; line-height: 1.3; }
+table.results td.num { width: 17%; font-weight: bold; font-size: 9.5pt; }
+table.results tr.carried th, table.results tr.carried td { background: #e8f1f8; }
+table.results tr.carried td.num { font-size: 11pt; }
+table.results tr.criterion td.num { color: var(--met); }
+table.results tr.not-met td.num { color: var(--notmet); }
+table.compact { font-size: 7.8pt; }
+table.compact tr.carried td { font-weight: bold; }
+td.stack { font-size: 7.5pt; color: var(--muted); padding-left: 5mm; }
+table.sign-off { margin-top: 3mm; font-size: 8.5pt; }
+table.sign-off th { width: 14%; background: none; border-bottom: none; }
+table.sign-off td { border-bottom: 0.3mm solid var(--ink); height: 8mm; vertical-align: bottom; }
+figure { margin: 2mm 0; break-inside: avoid; }
 figure svg { display: block; max-width: 100%; height: auto; margin: 0 auto; }
-figcaption { font-size: 8.5pt; color: var(--muted); margin-top: 2mm; }
+.figure-row { display: grid; grid-template-columns: 1fr 1fr; gap: 4mm; align-items: start; break-inside: avoid; }
+.figure-row figure { margin: 1mm 0; min-width: 0; }
+figure.sheet-figure svg { max-height: 80mm; width: auto; }
+figure.sheet-figure figcaption { font-size: 6.8pt; line-height: 1.3; }
+figcaption { font-size: 7.5pt; color: var(--muted); margin-top: 1mm; }
 figcaption b { color: var(--ink); }
-.small { font-size: 8.5pt; color: var(--muted); }
+.small { font-size: 8pt; color: var(--muted); }
 .status { border: 0.3mm solid var(--rule); background: var(--soft); padding: 2mm 3mm; }
-code, pre { font-family: "DejaVu Sans Mono", "Liberation Mono", monospace; font-size: 8pt; }
+.cautions { border: 0.4mm solid var(--warn); background: #fff8e6; padding: 1.5mm 3mm; margin: 2.5mm 0; break-inside: avoid; font-size: 7.8pt; }
+.cautions h3 { margin: 0; color: var(--warn); font-size: 8.5pt; }
+.cautions ul, .warnings ul { margin: 0.5mm 0 0 4mm; padding: 0; }
+.warnings { border: 0.4mm solid var(--notmet); background: #fdf1f0; padding: 1.5mm 3mm; margin: 2.5mm 0; break-inside: avoid; font-size: 7.8pt; }
+.warnings h3 { margin: 0; color: var(--notmet); font-size: 8.5pt; }
+code, pre { font-family: "DejaVu Sans Mono", "Liberation Mono", monospace; font-size: 7.5pt; }
 pre { white-space: pre-wrap; word-break: break-all; background: var(--soft); border: 0.3mm solid var(--rule); padding: 2mm; }
 details summary { cursor: pointer; font-weight: bold; }
-footer { margin-top: 8mm; font-size: 8pt; color: var(--muted); border-top: 0.3mm solid var(--rule); padding-top: 2mm; }
-@page { size: A4; margin: 14mm 14mm 15mm 14mm; }
+footer { margin-top: 6mm; font-size: 7.5pt; color: var(--muted); border-top: 0.3mm solid var(--rule); padding-top: 1.5mm; }
+.sheet + .sheet { margin-top: 8mm; }
+@page { margin: 15mm 13mm 14mm 13mm;
+  @top-left { font-size: 7.5pt; color: #56606b; font-family: "DejaVu Sans", sans-serif; }
+  @top-right { font-size: 7.5pt; color: #56606b; font-family: "DejaVu Sans", sans-serif; }
+  @bottom-left { font-size: 7pt; color: #56606b; font-family: "DejaVu Sans", sans-serif; }
+  @bottom-right { font-size: 7.5pt; color: #56606b; font-family: "DejaVu Sans", sans-serif; } }
 @media print {
   html { background: #fff; }
-  body { max-width: none; margin: 0; padding: 0; font-size: 9pt; }
+  body { max-width: none; margin: 0; padding: 0; font-size: 8.8pt; }
   .page-break { break-before: page; }
+  .sheet + .sheet { margin-top: 0; }
   h2 { break-after: avoid; }
   a { color: inherit; text-decoration: none; }
+  footer { display: none; }
   details::details-content { content-visibility: visible; display: block; }
   details > pre { display: block; }
 }

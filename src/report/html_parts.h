@@ -7,6 +7,7 @@
 
 #include "geometry/cross_section.h"
 #include "report/html_report.h"
+#include "report/number_format.h"
 #include "report/svg_support.h"
 #include "results/calculation.h"
 
@@ -14,16 +15,13 @@ namespace edgeflux::html {
 
 using svg::escape;
 
-/// A number with fixed decimals and the ASCII minus (tables paste into spreadsheets as numbers).
-std::string fixed(double v, int decimals);
-/// The same with a sign always shown.
-std::string signed_fixed(double v, int decimals);
+using edgeflux::fixed;
+using edgeflux::signed_fixed;
+using edgeflux::error_text;
 /// "(x, y) unit" of a point in the user's unit.
 std::string user_point(const CrossSection& section, Point p);
 /// A summary card: label, value with unit, and a line of detail.
 std::string key_card(const std::string& label, const std::string& value, const std::string& unit, const std::string& detail);
-/// An error bar with at most the value's decimals.
-std::string error_text(double error, int decimals);
 /// " ± error" of an estimate, or nothing.
 std::string plus_minus(const std::optional<ErrorEstimate>& e, int decimals);
 /// The climate of the verdict in words.
@@ -32,13 +30,22 @@ std::string climate_text(const Climate& c);
 /// The report's style sheet (screen and A4 print).
 extern const char* const report_css;
 
-/// The header with the input file and its hash, and the summary: cards, verdict, cautions, warnings.
-std::string summary_section(const CrossSection& section, const Calculation& calc, const ReportProvenance& provenance);
-/// The tables of inputs and results; `plot_open`: the last figure's section is still open.
-std::string data_tables(const CrossSection& section, const Calculation& calc, bool plot_open);
+/// The junction sheet (at most two printed pages): title block with the record, results with the
+/// value carried forward, criteria, detail and temperature drawings, materials, boundary conditions,
+/// ψ derivation, cautions and sign-off.
+std::string junction_sheet(const CrossSection& section, const Calculation& calc, const std::vector<Drawing>& drawings,
+                           const ReportProvenance& provenance);
+/// Appendix A: heat flows, energy balance, flanking elements with their layer stacks, coupling
+/// coefficients, the moisture figures, probes.
+std::string results_appendix(const CrossSection& section, const Calculation& calc);
+/// Appendix B: mesh and solver, convergence, and the drawings not on the sheet.
+std::string mesh_appendix(const CrossSection& section, const Calculation& calc, const std::vector<Drawing>& drawings);
 /// Mesh levels and the ISO 10211 doubling check.
 std::string convergence_tables(const CrossSection& section, const Calculation& calc);
-/// Method, validation status and provenance with the input file.
+/// Appendix C: method, validation status and provenance with the input file.
 std::string method_section(const CrossSection& section, const Calculation& calc, const ReportProvenance& provenance);
+
+/// Text as a CSS string literal (for the running header of printed pages).
+std::string css_string(const std::string& text);
 
 }  // namespace edgeflux::html

@@ -26,8 +26,37 @@ std::string report_timestamp() {
   return text;
 }
 
+std::string html::css_string(const std::string& text) {
+  std::string out = "\"";
+  for (char c : text) {
+    if (c == '"' || c == '\\') out += '\\', out += c;
+    else if (c == '\n' || c == '\r') out += ' ';
+    else if (c == '<') out += "\\3C ";  // never closes the <style> element
+    else out += c;
+  }
+  return out + "\"";
+}
+
+namespace {
+
+/// The running header and page numbers of every printed page: junction reference, revision and
+/// date on the left, the title on the right.
+std::string page_rules(const CrossSection& section, const std::string& title, const ReportProvenance& provenance) {
+  const JunctionRecord& r = section.record;
+  std::string left = r.reference.empty() ? "Junction sheet" : "Junction " + r.reference;
+  if (!r.revision.empty()) left += " · rev. " + r.revision;
+  left += " · " + (r.date.empty() ? provenance.generated : r.date);
+  std::string right = title.size() > 70 ? title.substr(0, 67) + "…" : title;
+  if (!r.project.empty()) right = (r.project.size() > 40 ? r.project.substr(0, 37) + "…" : r.project) + " · " + right;
+  return fmt::format("@page {{ @top-left {{ content: {}; }} @top-right {{ content: {}; }} "
+                     "@bottom-left {{ content: {}; }} @bottom-right {{ content: \"page \" counter(page) \" of \" counter(pages); }} }}\n",
+                     css_string(left), css_string(right), css_string("edgeflux " + std::string(EDGEFLUX_VERSION) + " · " + section.file));
+}
+
+}  // namespace
+
 std::string html_report(const CrossSection& section, const Calculation& calc, const std::vector<Drawing>& drawings,
-                        const ReportProvenance& provenance) {
+                        const ReportProvenance& provenance, bool with_appendices) {
   const std::string title = section.title.empty() ? section.file : section.title;
   std::string h;
   auto add = [&](const std::string& s) { h += s; };
@@ -35,18 +64,17 @@ std::string html_report(const CrossSection& section, const Calculation& calc, co
   add("<!DOCTYPE html>\n<html lang=\"en\">\n<head>\n<meta charset=\"utf-8\">\n");
   add("<meta name=\"viewport\" content=\"width=device-width, initial-scale=1\">\n");
   add(fmt::format("<meta name=\"generator\" content=\"edgeflux {}\">\n", EDGEFLUX_VERSION));
-  add(fmt::format("<title>Thermal bridge assessment — {}</title>\n<style>{}</style>\n</head>\n<body>\n", escape(title), report_css));
-  add(summary_section(section, calc, provenance));
-  for (std::size_t i = 0; i < drawings.size(); ++i) {
-    const Drawing& d = drawings[i];
-    add(fmt::format("<section class=\"page-break\" id=\"{}\">\n<h2>Figure {} — {}</h2>\n<figure>\n{}<figcaption><b>Figure {}.</b> {}</figcaption>\n</figure>\n",
-                    d.id, i + 1, escape(d.title), d.svg, i + 1, escape(d.caption)));
-    if (d.id == "surface-temperature") break;  // the tables follow on the same page
-    add("</section>\n");
+  add(fmt::format("<title>Junction sheet — {}</title>\n<style>{}{}</style>\n</head>\n<body>\n", escape(title), report_css,
+                  page_rules(section, title, provenance)));
+  add(junction_sheet(section, calc, drawings, provenance));
+  if (with_appendices) {
+    add(results_appendix(section, calc));
+    add(mesh_appendix(section, calc, drawings));
+    add(method_section(section, calc, provenance));
+  } else {
+    add("<p class=\"small\">Appendices (heat flows, flanking layer stacks, mesh convergence, further drawings, method, validation and "
+        "the input file) were left out of this print; <code>edgeflux solve</code> writes them unless <code>--appendices none</code> is given.</p>\n");
   }
-  const bool plot_open = !drawings.empty() && drawings.back().id == "surface-temperature";
-  add(data_tables(section, calc, plot_open));
-  add(method_section(section, calc, provenance));
   add(fmt::format("<footer>edgeflux {} · {} · {}</footer>\n</body>\n</html>\n", EDGEFLUX_VERSION, escape(title), escape(provenance.generated)));
   return h;
 }

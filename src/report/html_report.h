@@ -26,10 +26,13 @@ struct ReportProvenance {
 /// 1970, the reproducible-builds convention) replaces "now" when it is set.
 std::string report_timestamp();
 
-/// The report: summary with ψ, L2D, θsi,min, fRsi, verdict and cautions; the drawings; tables of
-/// materials, environments and surfaces, flanking elements, heat flows, coupling (more than two
-/// environments), probes, mesh and solver; method and validation; provenance with the input file.
+/// The report: the junction sheet (two printed pages: record, ψ carried forward and the others, L2D,
+/// θsi,min and the junction's own minimum, fRsi, each criterion, detail and temperature drawings,
+/// materials, boundary conditions, ψ derivation, cautions, sign-off), then unless left out the
+/// appendices: heat flows and flanking elements, mesh and convergence with the further drawings,
+/// method, validation and provenance with the input file. Printed pages carry a running header
+/// (junction reference, revision, date) and page numbers.
 std::string html_report(const CrossSection& section, const Calculation& calc, const std::vector<Drawing>& drawings,
-                        const ReportProvenance& provenance);
+                        const ReportProvenance& provenance, bool with_appendices = true);
 
 }  // namespace edgeflux

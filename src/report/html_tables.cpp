@@ -62,23 +62,12 @@ std::string convergence_tables(const CrossSection& section, const Calculation& c
   return h;
 }
 
-std::string data_tables(const CrossSection& section, const Calculation& calc, bool plot_open) {
+std::string results_appendix(const CrossSection& section, const Calculation& calc) {
   const FieldResults& field = calc.heat_loss.field;
   const JunctionResults& j = calc.junction;
   std::string h;
   auto add = [&](const std::string& s) { h += s; };
-  add(plot_open ? "" : "<section>\n");
-  add("<h2>Input data and results</h2>\n");
-  add("<table><caption>Materials</caption><tr><th>Material</th><th class=\"num\">λ [W/(m·K)]</th><th>Source of λ</th><th>Regions</th></tr>\n");
-  for (std::size_t m = 0; m < section.materials.size(); ++m) {
-    std::string regions;
-    for (const Region& r : section.regions)
-      if (r.material == m) regions += (regions.empty() ? "" : ", ") + escape(r.name);
-    add(fmt::format("<tr><td>{}</td><td class=\"num\">{}</td><td>{}</td><td>{}</td></tr>\n", escape(section.materials[m].id),
-                    conductivity_text(section.materials[m].conductivity), escape(section.materials[m].source), regions));
-  }
-  add("</table>\n");
-
+  add("<section class=\"appendix page-break\" id=\"appendix-results\">\n<h2>Appendix A — Heat flows, flanking elements and moisture</h2>\n");
   add("<table><caption>Environments</caption><tr><th>Environment</th><th>Side</th><th class=\"num\">θ [°C]</th><th class=\"num\">Φ into the section [W/m]</th></tr>\n");
   for (const EnvironmentFlow& flow : field.environments) {
     const Environment& e = section.environments[flow.environment];
@@ -87,16 +76,11 @@ std::string data_tables(const CrossSection& section, const Calculation& calc, bo
   }
   add("</table>\n");
 
-  add("<table><caption>Surfaces and surface resistances (Rs of the heat-loss run per ISO 6946; of the surface-temperature run per ISO 13788)</caption>"
-      "<tr><th>Surface</th><th>Environment</th><th>Kind</th><th class=\"num\">Rs heat loss [m²K/W]</th><th class=\"num\">Rs surface temp. [m²K/W]</th>"
-      "<th class=\"num\">Φ [W/m]</th></tr>\n");
-  for (std::size_t s = 0; s < section.surfaces.size(); ++s) {
-    const Surface& surface = section.surfaces[s];
-    add(fmt::format("<tr><td>{}</td><td>{}</td><td>{}</td><td class=\"num\">{}</td><td class=\"num\">{}</td><td class=\"num\">{}</td></tr>\n", escape(surface.name),
-                    escape(section.environments[surface.environment].id), surface.kind == SurfaceKind::glazing ? "glazing/frame" : "opaque",
-                    surface.is_fixed_temperature() ? std::string("0 (fixed θ)") : fixed(surface.resistance, 2), fixed(temperature_run_resistance(section, surface), 2),
-                    s < field.surface_heat_flow.size() ? fixed(field.surface_heat_flow[s], 3) : std::string("—")));
-  }
+  add("<table><caption>Heat flow per surface (heat-loss run)</caption><tr><th>Surface</th><th>Environment</th><th class=\"num\">Φ [W/m]</th></tr>\n");
+  for (std::size_t s = 0; s < section.surfaces.size(); ++s)
+    add(fmt::format("<tr><td>{}</td><td>{}</td><td class=\"num\">{}</td></tr>\n", escape(section.surfaces[s].name),
+                    escape(section.environments[section.surfaces[s].environment].id),
+                    s < field.surface_heat_flow.size() ? fixed(field.surface_heat_flow[s], digits::heat_flow) : std::string("—")));
   add("</table>\n");
 
   add(fmt::format("<table><caption>Heat flows and energy balance (heat-loss run)</caption><tr><th>Quantity</th><th class=\"num\">Value</th><th>Note</th></tr>\n"
@@ -110,37 +94,20 @@ std::string data_tables(const CrossSection& section, const Calculation& calc, bo
 
   if (!j.flanking.empty()) {
     add("<table><caption>Flanking elements (U from the layer stack at the cut-off plane, ISO 6946, unless stated)</caption><tr><th>Element</th>"
-        "<th class=\"num\">U [W/(m²K)]</th><th>Layer stack at the cut-off</th><th class=\"num\">l internal [m]</th><th class=\"num\">l overall int. [m]</th>"
+        "<th class=\"num\">U [W/(m²K)]</th><th class=\"num\">l internal [m]</th><th class=\"num\">l overall int. [m]</th>"
         "<th class=\"num\">l external [m]</th><th class=\"num\">1D check [K]</th></tr>\n");
     for (const FlankingResult& f : j.flanking) {
       std::string stack = fmt::format("Rs {} | ", fixed(f.start_resistance, 2));
       for (const FlankingLayer& l : f.layers) stack += fmt::format("{} {} mm (λ {:.3g}) | ", escape(l.material), fixed(l.thickness * 1000, 0), l.conductivity);
       stack += fmt::format("Rs {}", fixed(f.end_resistance, 2));
-      auto len = [&](int s) { return f.length[s] ? fixed(*f.length[s], 3) : std::string("—"); };
-      add(fmt::format("<tr><td class=\"nowrap\">{}</td><td class=\"num\">{}{}</td><td>{}</td><td class=\"num\">{}</td><td class=\"num\">{}</td><td class=\"num\">{}</td>"
-                      "<td class=\"num\">{}</td></tr>\n",
-                      escape(f.id), fixed(f.u_value, 4), f.u_value_stated ? " (stated)" : "", stack, len(0), len(1), len(2), fixed(f.deviation_from_1d, 3)));
+      auto len = [&](int s) { return f.length[s] ? fixed(*f.length[s], digits::length) : std::string("—"); };
+      add(fmt::format("<tr class=\"element\"><td>{}</td><td class=\"num\">{}{}</td><td class=\"num\">{}</td><td class=\"num\">{}</td><td class=\"num\">{}</td>"
+                      "<td class=\"num\">{}</td></tr>\n<tr><td colspan=\"6\" class=\"stack\">layer stack at the cut-off: {}</td></tr>\n",
+                      escape(f.id), fixed(f.u_value, 4), f.u_value_stated ? " (stated)" : "", len(0), len(1), len(2), fixed(f.deviation_from_1d, 3), stack));
     }
     add("</table>\n<p class=\"small\">1D check: the largest difference, along the cut-off plane, between the computed temperatures and the 1D profile of "
         "the layer stack. A large value means the cut-off plane is too close to the junction.</p>\n");
   }
-  if (!j.psi.empty() && calc.heat_loss.field.coupling_2d) {
-    add("<table><caption>Linear thermal transmittance ψ = L<sub>2D</sub> − Σ U<sub>j</sub>·l<sub>j</sub></caption><tr><th>Dimension system</th>"
-        "<th class=\"num\">L<sub>2D</sub></th><th>Σ U·l</th><th class=\"num\">ψ [W/(m·K)]</th></tr>\n");
-    for (const PsiValue& p : j.psi) {
-      std::string terms;
-      double sum = 0;
-      for (const FlankingResult& f : j.flanking)
-        if (const auto& l = f.length[static_cast<int>(p.system)]) {
-          terms += fmt::format("{}{} × {}", terms.empty() ? "" : " + ", fixed(f.u_value, 4), fixed(*l, 3));
-          sum += f.u_value * *l;
-        }
-      add(fmt::format("<tr><td>{}</td><td class=\"num\">{}</td><td>{} = {}</td><td class=\"num\"><b>{}</b></td></tr>\n", dimension_system_name(p.system),
-                      fixed(*calc.heat_loss.field.coupling_2d, 4), terms, fixed(sum, 4), fixed(p.psi, 3)));
-    }
-    add("</table>\n");
-  }
-
   if (section.environments.size() > 2 && !j.coupling.empty()) {
     add("<table><caption>Coupling matrix ∂Φ<sub>i</sub>/∂θ<sub>j</sub> [W/(m·K)] (heat-loss run; L<sub>ij</sub> = −entry for i ≠ j; rows sum to zero)</caption><tr><th></th>");
     for (const Environment& e : section.environments) add(fmt::format("<th class=\"num\">{}</th>", escape(e.id)));
@@ -187,6 +154,14 @@ std::string data_tables(const CrossSection& section, const Calculation& calc, bo
     add("</table>\n");
   }
 
+  add("</section>\n");
+  return h;
+}
+
+std::string mesh_appendix(const CrossSection& section, const Calculation& calc, const std::vector<Drawing>& drawings) {
+  std::string h;
+  auto add = [&](const std::string& s) { h += s; };
+  add("<section class=\"appendix page-break\" id=\"appendix-mesh\">\n<h2>Appendix B — Mesh, convergence and further drawings</h2>\n");
   const SolveInfo& info = calc.heat_loss.info;
   add(fmt::format("<table><caption>Mesh and solver</caption><tr><th>Item</th><th>Value</th></tr>\n"
                   "<tr><td>Mesh</td><td>{} mesher: {} nodes, {} triangles</td></tr>\n"
@@ -197,6 +172,12 @@ std::string data_tables(const CrossSection& section, const Calculation& calc, bo
                   info.ok && calc.surface_temperature.info.ok ? "without fault in both runs" : "WITH A FAULT: " + escape(info.message),
                   calc.timings.mesh_seconds, calc.timings.solve_seconds, calc.timings.results_seconds));
   add(convergence_tables(section, calc));
+  int number = 3;
+  for (const Drawing& d : drawings) {
+    if (d.id == "detail" || d.id == "temperature") continue;
+    add(fmt::format("<figure id=\"{}\">\n{}<figcaption><b>Figure {}. {}.</b> {}</figcaption>\n</figure>\n", d.id, d.svg, number++, escape(d.title),
+                    escape(d.caption)));
+  }
   add("</section>\n");
   return h;
 }

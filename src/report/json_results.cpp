@@ -20,6 +20,11 @@ std::string json_results(const CrossSection& section, const Calculation& calc) {
   j["program_version"] = EDGEFLUX_VERSION;
   j["title"] = section.title;
   j["input_file"] = section.file;
+  {
+    const JunctionRecord& r = section.record;
+    j["record"] = {{"reference", r.reference}, {"project", r.project}, {"client", r.client}, {"site", r.site}, {"drawing", r.drawing},
+                   {"revision", r.revision}, {"assessor", r.assessor}, {"checker", r.checker}, {"date", r.date}};
+  }
   auto& envs = j["environments"] = nlohmann::ordered_json::array();
   for (const EnvironmentFlow& flow : calc.heat_loss.field.environments) {
     const Environment& e = section.environments[flow.environment];
@@ -49,11 +54,27 @@ std::string json_results(const CrossSection& section, const Calculation& calc) {
   }
   auto& psi = j["psi_w_per_mk"] = nlohmann::ordered_json::object();
   for (const PsiValue& p : junction.psi) psi[system_key(p.system)] = p.psi;
+  j["carried_forward_system"] = section.carried_forward ? nlohmann::ordered_json(system_key(*section.carried_forward)) : nullptr;
+  if (!junction.pair_psi.empty()) {
+    auto& pairs = j["psi_per_environment_pair"] = nlohmann::ordered_json::array();
+    for (const PairPsi& p : junction.pair_psi) {
+      nlohmann::ordered_json values = nlohmann::ordered_json::object();
+      for (const PsiValue& v : p.psi) values[system_key(v.system)] = v.psi;
+      pairs.push_back({{"environments", {section.environments[p.first].id, section.environments[p.second].id}},
+                       {"coupling_coefficient_w_per_mk", p.coupling}, {"flanking_elements", p.elements}, {"psi_w_per_mk", values}});
+    }
+  }
   j["min_interior_surface"] = nullptr;
   if (junction.min_interior_surface) {
     const SurfaceMinimum& m = *junction.min_interior_surface;
     j["min_interior_surface"] = {{"temperature_c", m.temperature}, {"x_m", m.at.x}, {"y_m", m.at.y},
-                                 {"surface", section.surfaces[m.surface].name}, {"run", "surface_temperature"}};
+                                 {"surface", section.surfaces[m.surface].name}, {"run", "surface_temperature"},
+                                 {"plain_element_governs", junction.plain_element_governs ? nlohmann::ordered_json(*junction.plain_element_governs) : nullptr}};
+  }
+  j["junction_min_interior_surface"] = nullptr;
+  if (junction.junction_minimum) {
+    const SurfaceMinimum& m = *junction.junction_minimum;
+    j["junction_min_interior_surface"] = {{"temperature_c", m.temperature}, {"x_m", m.at.x}, {"y_m", m.at.y}, {"surface", section.surfaces[m.surface].name}};
   }
   j["temperature_factor_frsi"] = junction.temperature_factor ? nlohmann::ordered_json(*junction.temperature_factor) : nullptr;
   if (section.environments.size() > 2) {
@@ -78,7 +99,15 @@ std::string json_results(const CrossSection& section, const Calculation& calc) {
                         {"mould_min_surface_temperature_c", a.mould_surface_temperature},
                         {"mould_frsi_min", a.mould_temperature_factor}, {"condensation_frsi_min", a.condensation_temperature_factor},
                         {"required_frsi", a.required_temperature_factor}, {"governing_requirement", a.governing_requirement},
-                        {"passes", a.passes}, {"margin", a.margin}, {"verdict", a.verdict}});
+                        {"passes", a.passes}, {"margin", a.margin}, {"outcome", criteria_outcome(a.criteria)},
+                        {"criteria", [&] {
+                           auto list = nlohmann::ordered_json::array();
+                           for (const CriterionCheck& c : a.criteria)
+                             list.push_back({{"criterion", c.criterion}, {"required_frsi", c.required}, {"met", c.met}, {"governs", c.governs},
+                                             {"statement", criterion_statement(c, a.actual_temperature_factor)}});
+                           return list;
+                         }()},
+                        {"verdict", a.verdict}});
   }
   const Convergence& conv = calc.convergence;
   auto estimate = [](const std::optional<ErrorEstimate>& e) {

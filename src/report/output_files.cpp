@@ -24,7 +24,7 @@ std::vector<OutputFile> build_output_files(const CrossSection& section, const Ca
   const bool want_drawings = !request.html_report.empty() || !request.svg_folder.empty() || !request.png_folder.empty();
   const std::vector<Drawing> drawings = want_drawings ? report_drawings(section, calc) : std::vector<Drawing>{};
   if (!request.html_report.empty())
-    files.push_back({request.html_report, html_report(section, calc, drawings, provenance)});
+    files.push_back({request.html_report, html_report(section, calc, drawings, provenance, request.report_appendices)});
   if (!request.svg_folder.empty())
     for (const Drawing& d : drawings) files.push_back({in_folder(request.svg_folder, d.id + ".svg"), standalone_svg(d), true});
   if (!request.png_folder.empty())

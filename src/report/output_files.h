@@ -14,6 +14,7 @@ namespace edgeflux {
 /// Which outputs to build; an empty path or folder means "not wanted".
 struct OutputRequest {
   std::string html_report;  ///< the HTML report
+  bool report_appendices = true;  ///< false: the junction sheet alone
   std::string svg_folder;   ///< one standalone SVG per drawing: detail.svg, mesh.svg, …
   std::string png_folder;   ///< the same drawings as PNG (librsvg)
   std::string vtu_file;     ///< VTK XML UnstructuredGrid of the mesh and fields

@@ -5,11 +5,13 @@
 
 #include <algorithm>
 
+#include "report/number_format.h"
+
 namespace edgeflux {
 
 std::string summary_text(const CrossSection& section, const Calculation& calc) {
   const double unit = section.metres_per_unit;
-  auto at = [&](Point p) { return fmt::format("({:.6g}, {:.6g}) {}", p.x / unit, p.y / unit, section.unit); };
+  auto at = [&](Point p) { return point_text(p, unit, section.unit); };
   const FieldResults& field = calc.heat_loss.field;
   const JunctionResults& junction = calc.junction;
   std::string out;
@@ -19,6 +21,19 @@ std::string summary_text(const CrossSection& section, const Calculation& calc) {
 
   line(fmt::format("edgeflux {} — {}", EDGEFLUX_VERSION, section.title.empty() ? section.file : section.title));
   line(fmt::format("input: {}", section.file));
+  {
+    const JunctionRecord& r = section.record;
+    std::string record;
+    auto add = [&](const char* label, const std::string& v) { if (!v.empty()) record += fmt::format("{}{}: {}", record.empty() ? "" : " · ", label, v); };
+    add("junction", r.reference);
+    add("project", r.project);
+    add("drawing", r.drawing);
+    add("revision", r.revision);
+    add("date", r.date);
+    add("assessor", r.assessor);
+    add("checker", r.checker);
+    if (!record.empty()) line(record);
+  }
   line("");
   line("Heat-loss run (surface resistances as given; Φ positive into the section)");
   line(fmt::format("  {:<{}} {:>8} {:>12}   {:<30} {}", "environment", id_width, "θ [°C]", "Φ [W/m]",
@@ -34,15 +49,7 @@ std::string summary_text(const CrossSection& section, const Calculation& calc) {
   line(fmt::format("  energy balance: Σ Φ = {:.2e} W/m, ratio {:.1e} (ISO 10211 criterion < 1e-4: {})", field.balance.net,
                    field.balance.relative, std::abs(field.balance.relative) < 1e-4 ? "met" : "NOT MET"));
   const Convergence& conv = calc.convergence;
-  // The error bar in the value's own decimals, or in one significant digit when it rounds to zero there.
-  auto bar = [](const std::optional<ErrorEstimate>& e, const char* format_digits) {
-    if (!e) return std::string();
-    const std::string fixed = fmt::format(fmt::runtime(std::string("{:") + format_digits + "}"), e->error);
-    if (fixed.find_first_of("123456789") != std::string::npos) return " ± " + fixed;
-    return fmt::format(" ± {:.0e}", e->error);
-  };
-  if (field.coupling_2d)
-    line(fmt::format("  thermal coupling coefficient L2D = {:.5f}{} W/(m·K)", *field.coupling_2d, bar(conv.coupling_2d, ".5f")));
+  if (field.coupling_2d) line(fmt::format("  thermal coupling coefficient L2D = {} W/(m·K)", fixed(*field.coupling_2d, digits::coupling)));
 
   if (!junction.flanking.empty()) {
     line("");
@@ -64,20 +71,39 @@ std::string summary_text(const CrossSection& section, const Calculation& calc) {
   if (!junction.psi.empty()) {
     line("");
     line("Linear thermal transmittance ψ = L2D − Σ U·l");
-    for (std::size_t i = 0; i < junction.psi.size(); ++i) {
-      const PsiValue& p = junction.psi[i];
-      const std::optional<ErrorEstimate> e = i < conv.psi.size() ? std::optional<ErrorEstimate>(conv.psi[i]) : std::nullopt;
-      line(fmt::format("  {:<29} ψ = {:+.4f}{} W/(m·K)", fmt::format("{} dimensions:", dimension_system_name(p.system)), p.psi,
-                       bar(e, ".4f")));
+    for (const PsiValue& p : junction.psi) {
+      const bool carried = section.carried_forward == p.system;
+      line(fmt::format("  {:<29} ψ = {:>6} W/(m·K){}", fmt::format("{} dimensions:", dimension_system_name(p.system)), fixed(p.psi, digits::psi),
+                       carried ? "   ← carried forward" : ""));
     }
+    if (!section.carried_forward)
+      line("  (no system marked as carried forward: carry-forward=\"...\" in <flanking-elements> or --carry-forward)");
   }
+  for (const PairPsi& pair : junction.pair_psi) {
+    if (&pair == &junction.pair_psi.front()) {
+      line("");
+      line("ψ per pair of environments = Lij − Σ U·l of the flanking elements between them (ISO 10211)");
+    }
+    for (const PsiValue& p : pair.psi)
+      line(fmt::format("  {} – {}, {} dimensions: ψ = {} W/(m·K) (Lij {}; elements {}){}", section.environments[pair.first].id,
+                       section.environments[pair.second].id, dimension_system_name(p.system), fixed(p.psi, digits::psi),
+                       fixed(pair.coupling, digits::coupling), fmt::join(pair.elements, ", "),
+                       section.carried_forward == p.system ? "   ← carried forward" : ""));
+  }
+  if (const std::string accuracy = accuracy_statement(conv); !accuracy.empty()) line("  (" + accuracy + ")");
 
   line("");
   line("Surface-temperature run (interior Rsi 0.25 m²K/W on opaque surfaces, 0.13 on glazing; ISO 13788)");
   if (junction.min_interior_surface) {
     const SurfaceMinimum& m = *junction.min_interior_surface;
-    line(fmt::format("  θsi,min = {:.2f}{} °C at {} on surface '{}'", m.temperature, bar(conv.min_surface_temperature, ".2f"),
-                     at(m.at), section.surfaces[m.surface].name));
+    line(fmt::format("  θsi,min = {} °C at {} on surface '{}'", fixed(m.temperature, digits::surface_temperature), at(m.at),
+                     section.surfaces[m.surface].name));
+    if (junction.plain_element_governs) {
+      line(fmt::format("    this is the plain element '{}' at its cut-off plane: the undisturbed element governs", *junction.plain_element_governs));
+      if (junction.junction_minimum)
+        line(fmt::format("    the junction's own lowest: {} °C at {} on surface '{}'", fixed(junction.junction_minimum->temperature, digits::surface_temperature),
+                         at(junction.junction_minimum->at), section.surfaces[junction.junction_minimum->surface].name));
+    }
   } else {
     // Say which of the two reasons holds: no interior environment, or only fixed temperatures facing it.
     bool interior_surface = false;
@@ -123,7 +149,9 @@ std::string summary_text(const CrossSection& section, const Calculation& calc) {
                        a.mould_surface_temperature));
       line(fmt::format("    fRsi,min: mould {:.3f}, condensation {:.3f}; required {:.3f} ({})", a.mould_temperature_factor,
                        a.condensation_temperature_factor, a.required_temperature_factor, a.governing_requirement));
-      line(fmt::format("    fRsi = {:.3f}, margin {:+.3f}: {}", a.actual_temperature_factor, a.margin, a.verdict));
+      for (const CriterionCheck& c : a.criteria) line("    " + criterion_statement(c, a.actual_temperature_factor));
+      line(fmt::format("    margin {:+.3f} to the highest requirement; the coldest surface reaches {:.1f} °C and {:.0f} % surface RH",
+                       a.margin, a.surface_temperature, 100 * a.surface_relative_humidity));
     }
   }
 

@@ -70,6 +70,8 @@ std::vector<FlankingResult> flanking_results(const CrossSection& section, const 
       throw std::logic_error("the cut-off of flanking element '" + element.id + "' does not end on surfaces");
     r.start_surface = section.surfaces[start_surface].name;
     r.end_surface = section.surfaces[end_surface].name;
+    r.start_environment = section.surfaces[start_surface].environment;
+    r.end_environment = section.surfaces[end_surface].environment;
     r.start_resistance = heat_loss.problem.surface_resistance[start_surface];
     r.end_resistance = heat_loss.problem.surface_resistance[end_surface];
     std::vector<Layer> stack;

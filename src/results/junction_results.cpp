@@ -43,6 +43,64 @@ std::optional<SurfaceMinimum> coldest_interior(const CrossSection& section, cons
   return best;
 }
 
+/// Where the coldest interior point lies relative to the cut-off planes, and the junction's own
+/// minimum: along the interior surfaces (a chain of boundary edges) the nodes no warmer than their
+/// neighbours are local minima; those on a cut-off plane belong to the undisturbed element.
+void find_junction_minimum(const CrossSection& section, const TriMesh& mesh, const Run& run, JunctionResults& r) {
+  if (!r.min_interior_surface) return;
+  std::vector<std::vector<int>> neighbours(mesh.points.size());
+  std::vector<int> surface_of(mesh.points.size(), -1);
+  std::vector<int> cut_off_at(mesh.points.size(), -1);
+  for (const BoundaryEdge& e : mesh.boundary_edges) {
+    if (e.cut_off >= 0) cut_off_at[e.a] = cut_off_at[e.b] = e.cut_off;
+    if (e.surface < 0) continue;
+    const Surface& s = section.surfaces[e.surface];
+    if (section.environments[s.environment].side != Side::interior || s.is_fixed_temperature()) continue;
+    neighbours[e.a].push_back(e.b);
+    neighbours[e.b].push_back(e.a);
+    surface_of[e.a] = surface_of[e.b] = e.surface;
+  }
+  std::optional<SurfaceMinimum> best;
+  for (std::size_t n = 0; n < neighbours.size(); ++n) {
+    if (neighbours[n].empty() || cut_off_at[n] >= 0) continue;
+    const double t = run.temperature[n];
+    const bool local_minimum =
+        std::all_of(neighbours[n].begin(), neighbours[n].end(), [&](int m) { return run.temperature[m] >= t; });
+    if (local_minimum && (!best || t < best->temperature)) best = SurfaceMinimum{t, mesh.points[n], surface_of[n]};
+  }
+  r.junction_minimum = best;
+  for (std::size_t n = 0; n < mesh.points.size(); ++n)
+    if (cut_off_at[n] >= 0 && mesh.points[n].x == r.min_interior_surface->at.x && mesh.points[n].y == r.min_interior_surface->at.y)
+      r.plain_element_governs = section.flanking_elements[cut_off_at[n]].id;
+  if (!r.plain_element_governs) r.junction_minimum = r.min_interior_surface;
+}
+
+/// ψ per pair of environments joined by flanking elements, for sections with three or more.
+std::vector<PairPsi> pair_psi(const CrossSection& section, const JunctionResults& r) {
+  std::vector<PairPsi> pairs;
+  const std::size_t n = section.environments.size();
+  if (n < 3 || r.coupling.size() != n) return pairs;
+  for (std::size_t i = 0; i < n; ++i)
+    for (std::size_t j = i + 1; j < n; ++j) {
+      PairPsi p{i, j, -r.coupling[i][j], {}, {}};
+      std::vector<const FlankingResult*> between;
+      for (const FlankingResult& f : r.flanking)
+        if ((f.start_environment == i && f.end_environment == j) || (f.start_environment == j && f.end_environment == i)) {
+          between.push_back(&f);
+          p.elements.push_back(f.id);
+        }
+      if (between.empty()) continue;
+      for (DimensionSystem system : all_dimension_systems) {
+        std::vector<FlankingContribution> terms;
+        for (const FlankingResult* f : between)
+          if (const auto& l = f->length[static_cast<int>(system)]) terms.push_back({f->u_value, *l});
+        if (terms.size() == between.size()) p.psi.push_back({system, linear_transmittance(p.coupling, terms)});
+      }
+      pairs.push_back(std::move(p));
+    }
+  return pairs;
+}
+
 std::optional<std::size_t> only_environment_on(const CrossSection& section, Side side) {
   std::set<std::size_t> found;
   for (const Surface& s : section.surfaces)
@@ -63,7 +121,8 @@ JunctionResults junction_results(const CrossSection& section, const TriMesh& mes
   // ψ = L2D − Σ Uj lj in every system for which every flanking element has a length.
   if (!section.flanking_elements.empty()) {
     if (!heat_loss.field.coupling_2d) {
-      r.warnings.push_back("ψ needs exactly two environments; with more, use the coupling coefficients Lij");
+      r.warnings.push_back("a single ψ needs exactly two environments; with more, ψ is given per pair of environments joined by "
+                           "flanking elements (Lij less their U·l), and the coupling coefficients Lij describe the rest");
     } else {
       for (DimensionSystem system : all_dimension_systems) {
         std::vector<FlankingContribution> terms;
@@ -79,6 +138,8 @@ JunctionResults junction_results(const CrossSection& section, const TriMesh& mes
 
   // θsi,min, fRsi and weighting factors from the surface-temperature run.
   r.min_interior_surface = coldest_interior(section, mesh, surface_temperature, std::nullopt);
+  find_junction_minimum(section, mesh, surface_temperature, r);
+  r.pair_psi = pair_psi(section, r);
   r.interior_environment = only_environment_on(section, Side::interior);
   r.exterior_environment = only_environment_on(section, Side::exterior);
   if (r.min_interior_surface) {

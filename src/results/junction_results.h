@@ -24,6 +24,7 @@ struct FlankingResult {
   std::string id;
   std::vector<FlankingLayer> layers;        ///< crossed by the cut-off edge, from its start
   std::string start_surface, end_surface;   ///< the faces the element joins
+  std::size_t start_environment = 0, end_environment = 0;  ///< the environments those faces face
   double start_resistance = 0, end_resistance = 0;  ///< their heat-loss-run Rs, m²K/W
   std::optional<double> stack_u_value;      ///< U from the layer stack, W/(m²K)
   double u_value = 0;                       ///< U used for ψ (stated, else from the stack)
@@ -43,6 +44,15 @@ struct SurfaceMinimum {
   int surface = -1;        ///< index into CrossSection::surfaces
 };
 
+/// ψ between one pair of environments of a section with three or more (ISO 10211): their coupling
+/// coefficient Lij less U·l of the flanking elements that join exactly these two environments.
+struct PairPsi {
+  std::size_t first = 0, second = 0;   ///< environment indices, first < second
+  double coupling = 0;                 ///< Lij, W/(m·K)
+  std::vector<std::string> elements;   ///< ids of the flanking elements between them
+  std::vector<PsiValue> psi;           ///< per dimension system every one of them has a length in
+};
+
 struct MoistureResult {
   SurfaceKind kind;              ///< opaque: mould criterion; glazing: condensation criterion
   SurfaceMinimum minimum;
@@ -54,6 +64,14 @@ struct JunctionResults {
   std::vector<FlankingResult> flanking;
   std::vector<PsiValue> psi;                   ///< every system the lengths allow
   std::optional<SurfaceMinimum> min_interior_surface;  ///< surface-temperature run
+  /// The junction's own coldest point: the lowest local minimum of the interior surface temperature
+  /// away from the cut-off planes. It equals min_interior_surface unless the plain element governs.
+  std::optional<SurfaceMinimum> junction_minimum;
+  /// θsi,min lies where a cut-off plane meets an interior surface: the undisturbed flanking element
+  /// is colder than the junction itself. Names that element.
+  std::optional<std::string> plain_element_governs;
+  /// With three or more environments: ψ per pair of environments joined by flanking elements.
+  std::vector<PairPsi> pair_psi;
   std::optional<double> temperature_factor;    ///< fRsi = (θsi,min − θe)/(θi − θe)
   std::optional<std::size_t> interior_environment, exterior_environment;
   /// coupling[i][j] = ∂Φi/∂θj, W/(m·K): heat flow into the section from environment i per kelvin

@@ -33,6 +33,9 @@ void record(Results& r, const std::string& file, const Calculation& calc) {
   for (const PsiValue& p : calc.junction.psi) put(fmt::format("psi {}", dimension_system_name(p.system)), p.psi);
   if (calc.junction.min_interior_surface) put("theta_si_min", calc.junction.min_interior_surface->temperature);
   if (calc.junction.temperature_factor) put("fRsi", *calc.junction.temperature_factor);
+  if (calc.junction.junction_minimum) put("junction theta_si_min", calc.junction.junction_minimum->temperature);
+  for (const PairPsi& pair : calc.junction.pair_psi)
+    for (const PsiValue& p : pair.psi) put(fmt::format("psi {}-{} {}", pair.first, pair.second, dimension_system_name(p.system)), p.psi);
   for (const auto& p : calc.heat_loss.field.probes) put("probe " + p.name, p.temperature);
   if (calc.convergence.coupling_2d) put("L2D error bar", calc.convergence.coupling_2d->error);
 }

@@ -78,15 +78,19 @@ TEST_CASE("verdict on both sides of the ISO 13788 mould limit") {
     CHECK(a.margin > 0.0);
     CHECK(a.governing_basis == RequirementBasis::mould_criterion);
     CHECK(std::abs(a.margin - (0.706 - a.mould_temperature_factor)) <= 1e-12);
-    CHECK(a.verdict.rfind("Pass", 0) == 0);
+    CHECK(a.verdict.rfind("criterion met: fRsi 0.706 ≥ fRsi,min 0.705 (ISO 13788, 80 % surface RH)", 0) == 0);
+    REQUIRE(a.criteria.size() == 1);
+    CHECK(a.criteria[0].met);
+    CHECK(criteria_outcome(a.criteria) == "criterion met");
   }
   SUBCASE("just below the limit fails with a negative margin") {
     const MoistureAssessment a = assess_surface_moisture(standard_climate(0.704));
     CHECK_FALSE(a.passes);
     CHECK(a.margin < 0.0);
     CHECK(a.surface_relative_humidity > 0.8);  // mould criterion, ISO 13788
-    CHECK(a.verdict.rfind("Fail", 0) == 0);
+    CHECK(a.verdict.rfind("criterion NOT met: fRsi 0.704 < fRsi,min 0.705 (ISO 13788, 80 % surface RH)", 0) == 0);
     CHECK(a.verdict.find("mould") != std::string::npos);
+    CHECK(criteria_outcome(a.criteria) == "criterion NOT met");
   }
   SUBCASE("exactly on the limit passes: the criterion is surface RH at most 80 %") {
     const double limit = assess_surface_moisture(standard_climate(0.8)).mould_temperature_factor;
@@ -102,6 +106,15 @@ TEST_CASE("the national minimum governs only where it is higher than the ISO 137
     CHECK(a.governing_basis == RequirementBasis::mould_criterion);
     CHECK(a.required_temperature_factor == a.mould_temperature_factor);
     CHECK_FALSE(a.passes);
+    // Both rules are checked rows: the national one is met, the ISO one governs and is not.
+    REQUIRE(a.criteria.size() == 2);
+    CHECK(a.criteria[0].governs);
+    CHECK_FALSE(a.criteria[0].met);
+    CHECK_FALSE(a.criteria[1].governs);
+    CHECK(a.criteria[1].met);
+    CHECK(a.criteria[1].required == 0.70);  // DIN 4108-2
+    CHECK(criterion_statement(a.criteria[1], a.actual_temperature_factor) == "criterion met: fRsi 0.702 ≥ fRsi,min 0.700 (DIN 4108-2 minimum)");
+    CHECK(criteria_outcome(a.criteria) == "criterion NOT met");
   }
   SUBCASE("BRE IP 1/06 0.75 governs and fails a detail the ISO criterion alone would pass") {
     const MoistureAssessment a = assess_surface_moisture(standard_climate(0.74, "bre-ip-1-06"));
@@ -111,11 +124,17 @@ TEST_CASE("the national minimum governs only where it is higher than the ISO 137
     CHECK(std::abs(a.margin - (-0.01)) <= 1e-12);
     CHECK(a.governing_requirement.find("BRE IP 1/06") != std::string::npos);
     CHECK(a.verdict.find("national minimum") != std::string::npos);
+    REQUIRE(a.criteria.size() == 2);
+    CHECK(a.criteria[0].met);
+    CHECK_FALSE(a.criteria[1].met);
+    CHECK(a.criteria[1].governs);
+    CHECK(a.verdict.find("criterion NOT met: fRsi 0.740 < fRsi,min 0.750 (BRE IP 1/06 minimum)") != std::string::npos);
   }
   SUBCASE("BRE IP 1/06 passes above 0.75") {
     const MoistureAssessment a = assess_surface_moisture(standard_climate(0.76, "bre-ip-1-06"));
     CHECK(a.passes);
     CHECK(std::abs(a.margin - 0.01) <= 1e-12);
+    CHECK(criteria_outcome(a.criteria) == "all criteria met");
   }
   SUBCASE("DIN 4108-2 governs in a drier climate where the ISO value falls below 0.70") {
     MoistureInput input = standard_climate(0.69, "din-4108-2");

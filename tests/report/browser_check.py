@@ -6,8 +6,10 @@ Usage: browser_check.py REPORT.html RESULTS.json ARTIFACT_FOLDER [CHROMIUM]
 Checks: the page loads from file:// with no console error, no uncaught exception and no request
 for anything but the file itself; the key numbers of RESULTS.json (L2D, ψ per system, fRsi) appear
 in the page text as the report formats them; every inline SVG renders with a non-zero size; the
-page prints to PDF. Saves a full-page screenshot (report.png) and the print (report.pdf) in
-ARTIFACT_FOLDER. Exit 0 when all checks pass, 1 when one fails, 2 when the browser cannot be
+page prints to PDF. Printed at A4 and at US Letter: no element runs past the printable width, the
+junction sheet (the report without its appendices) takes at most two pages, and every appendix
+starts on a page of its own. Saves a full-page screenshot (report.png), the A4 print (report.pdf)
+and the sheet alone (sheet-a4.pdf, sheet-letter.pdf) in ARTIFACT_FOLDER. Exit 0 when all checks pass, 1 when one fails, 2 when the browser cannot be
 started or driven (a failure too: the check never passes without a browser).
 
 Chromium is driven through its DevTools protocol over a WebSocket, written here on the standard
@@ -171,6 +173,46 @@ def stop_chromium(proc):
                 pass
 
 
+# Paper sizes in mm; the report's @page rule sets 13 mm side margins and leaves the size to the printer.
+PAPERS = {"A4": (210.0, 297.0), "Letter": (215.9, 279.4)}
+SIDE_MARGINS_MM = 2 * 13.0
+MAX_SHEET_PAGES = 2
+PX_PER_MM = 96 / 25.4
+
+
+def count_pages(pdf):
+    """Pages of a PDF as Chromium writes it (one uncompressed /Type /Page dictionary per page)."""
+    import re
+    return len(re.findall(rb"/Type\s*/Page\b", pdf))
+
+
+def print_pdf(dt, width_mm, height_mm):
+    result = dt.call("Page.printToPDF", preferCSSPageSize=False, printBackground=True,
+                     paperWidth=width_mm / 25.4, paperHeight=height_mm / 25.4)
+    return base64.b64decode(result["data"])
+
+
+def overflowing_elements(dt, paper, width_mm):
+    """Elements whose box runs past the printable width when laid out for print on this paper."""
+    width_px = int((width_mm - SIDE_MARGINS_MM) * PX_PER_MM)
+    dt.call("Emulation.setEmulatedMedia", media="print")
+    dt.call("Emulation.setDeviceMetricsOverride", width=width_px, height=1200, deviceScaleFactor=1, mobile=False)
+    found = dt.call("Runtime.evaluate", returnByValue=True, expression="""(() => {
+        const limit = document.documentElement.clientWidth + 0.5, out = [];
+        for (const e of document.body.querySelectorAll('*')) {
+          if (e.closest('svg') && e.tagName.toLowerCase() !== 'svg') continue;
+          const r = e.getBoundingClientRect();
+          const wide = e.scrollWidth > e.clientWidth + 1 && getComputedStyle(e).overflowX !== 'visible';
+          if ((r.width > 0 && (r.right > limit || r.left < -0.5)) || wide)
+            out.push(`<${e.tagName.toLowerCase()} class="${e.className.baseVal ?? e.className}"> ${e.textContent.trim().slice(0, 40)}… ` +
+                     `spans ${Math.round(r.left)}–${Math.round(r.right)} px of ${Math.round(limit)}`);
+        }
+        return out; })()""")["result"]["value"]
+    dt.call("Emulation.setEmulatedMedia", media="")
+    dt.call("Emulation.clearDeviceMetricsOverride")
+    return [f"at {paper} width: {o}" for o in found[:8]] + ([f"… and {len(found) - 8} more"] if len(found) > 8 else [])
+
+
 def expected_numbers(results):
     """The key numbers as the report prints them (html_report.cpp: L2D 4 decimals, ψ and fRsi 3)."""
     numbers = {}
@@ -238,15 +280,30 @@ def check(report, results_file, artifacts, chromium):
         shot = dt.call("Page.captureScreenshot", format="png", captureBeyondViewport=True)
         with open(os.path.join(artifacts, "report.png"), "wb") as f:
             f.write(base64.b64decode(shot["data"]))
-        pdf = base64.b64decode(dt.call("Page.printToPDF", preferCSSPageSize=True, printBackground=True)["data"])
-        with open(os.path.join(artifacts, "report.pdf"), "wb") as f:
-            f.write(pdf)
-        if not pdf.startswith(b"%PDF"):
-            problems.append("printing to PDF gave no PDF")
+        pages_printed = {}
+        for paper, (width_mm, height_mm) in PAPERS.items():
+            problems += overflowing_elements(dt, paper, width_mm)
+            full = print_pdf(dt, width_mm, height_mm)
+            if paper == "A4":
+                with open(os.path.join(artifacts, "report.pdf"), "wb") as f:
+                    f.write(full)
+            if not full.startswith(b"%PDF"):
+                problems.append(f"printing to PDF at {paper} gave no PDF")
+            # The sheet alone: the same page without its appendices.
+            dt.call("Runtime.evaluate", expression="window.__appendices = Array.from(document.querySelectorAll('.appendix'));"
+                                                   "window.__appendices.forEach(e => e.style.display = 'none');")
+            sheet = print_pdf(dt, width_mm, height_mm)
+            dt.call("Runtime.evaluate", expression="window.__appendices.forEach(e => e.style.display = '');")
+            with open(os.path.join(artifacts, f"sheet-{paper.lower()}.pdf"), "wb") as f:
+                f.write(sheet)
+            pages_printed[paper] = (count_pages(sheet), count_pages(full))
+            if count_pages(sheet) > MAX_SHEET_PAGES:
+                problems.append(f"the junction sheet prints on {count_pages(sheet)} {paper} pages; it must fit on {MAX_SHEET_PAGES}")
         if problems:
             raise Failure("\n".join(problems))
         print(f"browser check passed: {', '.join(f'{k} {v}' for k, v in numbers.items())}; "
-              f"{len(page['svgs'])} drawings rendered; screenshot {os.path.join(artifacts, 'report.png')}")
+              f"{len(page['svgs'])} drawings rendered; printed pages (sheet, whole report): "
+              f"{', '.join(f'{p} {s}, {w}' for p, (s, w) in pages_printed.items())}; screenshot {os.path.join(artifacts, 'report.png')}")
     finally:
         stop_chromium(proc)
         shutil.rmtree(profile, ignore_errors=True)

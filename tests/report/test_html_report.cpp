@@ -8,6 +8,7 @@
 
 #include "../test_support.h"
 #include "core/sha256.h"
+#include "report/html_parts.h"
 #include "report/html_report.h"
 #include "report/svg_support.h"
 #include "report_test_support.h"
@@ -66,7 +67,12 @@ TEST_CASE("the report carries the cautions, the key numbers and its input") {
   REQUIRE(b.calc.junction.psi.size() == 3);
   for (const PsiValue& p : b.calc.junction.psi) CHECK(b.html.find(fmt::format("{:.3f}", p.psi)) != std::string::npos);
   CHECK(b.html.find(fmt::format("{:.3f}", *b.calc.junction.temperature_factor)) != std::string::npos);
-  CHECK(b.html.find("PASS") != std::string::npos);  // the demo passes DIN 4108-2 with margin (summary_text agrees)
+  // Each rule is its own row, in the words every output uses: the ISO 13788 criterion and the DIN 4108-2 minimum.
+  REQUIRE(b.calc.junction.moisture.size() == 1);
+  for (const CriterionCheck& c : b.calc.junction.moisture[0].assessment.criteria)
+    CHECK(b.html.find(svg::escape(criterion_statement(c, b.calc.junction.moisture[0].assessment.actual_temperature_factor))) != std::string::npos);
+  CHECK(b.calc.junction.moisture[0].assessment.criteria.size() == 2);
+  CHECK(b.html.find("PASS") == std::string::npos);  // a badge would read as compliance, which the cautions disclaim
   // Provenance: the SHA-256 of the exact bytes, and the bytes themselves, escaped.
   CHECK(b.html.find(sha256_hex(b.input)) != std::string::npos);
   CHECK(b.html.find(svg::escape(b.input)) != std::string::npos);
@@ -102,4 +108,45 @@ TEST_CASE("text from the detail file is escaped everywhere") {
   CHECK(html.find("&lt;b&gt;bold&lt;/b&gt; &amp; &quot;quoted&quot;") != std::string::npos);
   CHECK(html.find("<face>") == std::string::npos);
   CHECK(html.find("&lt;x/&gt;") != std::string::npos);
+}
+
+TEST_CASE("the junction sheet: record on every page, the ψ carried forward marked, the junction's own minimum, appendices that can be left out") {
+  const Built b = build("examples/intermediate-floor.xml");
+  // The record of the demo file, in the title block and in the running header of printed pages.
+  for (const char* field : {"Lindenhof row houses, block B", "A-310 section B-B", "R. Okafor", "M. Lindqvist", "2026-11-30"})
+    CHECK(b.html.find(field) != std::string::npos);
+  CHECK(b.html.find("@top-left { content: \"Junction J04 · rev. B · 2026-11-30\"; }") != std::string::npos);
+  CHECK(b.html.find("counter(page) \" of \" counter(pages)") != std::string::npos);
+  // External dimensions carried forward: that row is marked, the others are for reference.
+  REQUIRE(b.section.carried_forward == DimensionSystem::external);
+  CHECK(count(b.html, "<b>carried forward</b>") == 1);
+  CHECK(b.html.find("for reference: internal") != std::string::npos);
+  // θsi,min lies on the plain upper wall at its cut-off; the sheet says so and gives the junction's own minimum.
+  CHECK(b.html.find("the undisturbed element governs") != std::string::npos);
+  REQUIRE(b.calc.junction.junction_minimum);
+  CHECK(b.html.find(fmt::format("{:.2f} °C", b.calc.junction.junction_minimum->temperature)) != std::string::npos);
+  // Appendices follow the sheet; without them the sheet alone, saying what was left out.
+  for (const char* id : {"id=\"appendix-results\"", "id=\"appendix-mesh\"", "id=\"method\""}) CHECK(b.html.find(id) != std::string::npos);
+  const std::string sheet = html_report(b.section, b.calc, report_drawings(b.section, b.calc), {b.input, "2000-01-01 00:00 UTC"}, false);
+  for (const char* id : {"id=\"appendix-results\"", "id=\"appendix-mesh\"", "id=\"method\""}) CHECK(sheet.find(id) == std::string::npos);
+  CHECK(sheet.find("were left out of this print") != std::string::npos);
+  CHECK(count(sheet, "<svg") == 2);  // the detail and its temperature field
+}
+
+TEST_CASE("three environments: the sheet gives ψ per pair of environments") {
+  const Built b = build("examples/garage-partition.xml");
+  REQUIRE(b.calc.junction.pair_psi.size() == 3);
+  for (const PairPsi& pair : b.calc.junction.pair_psi)
+    for (const PsiValue& p : pair.psi)
+      CHECK(b.html.find(fmt::format("ψ {}–{}, {} dimensions", b.section.environments[pair.first].id, b.section.environments[pair.second].id,
+                                    dimension_system_name(p.system))) != std::string::npos);
+}
+
+TEST_CASE("record text cannot break out of the running header's CSS string or the style element") {
+  CHECK(html::css_string("J\"1\\ </style><script>") == "\"J\\\"1\\\\ \\3C /style>\\3C script>\"");
+  Built b = build("examples/intermediate-floor.xml");
+  b.section.record.reference = "</style><b>x";
+  const std::string html = html_report(b.section, b.calc, {}, {b.input, "now"});
+  CHECK(html.find("</style><b>x") == std::string::npos);
+  CHECK(html.find("&lt;/style&gt;&lt;b&gt;x") != std::string::npos);
 }
