@@ -65,7 +65,9 @@ ParameterOverrides parse_settings(const std::vector<std::string>& settings) {
     if (eq == std::string::npos || eq == 0 || end == setting.c_str() + eq + 1 || *end != '\0' || !std::isfinite(value))
       throw_input_error({"command line", 0}, "--set " + setting, "is not of the form name=number",
                         "write e.g. --set insulation_thickness=160");
-    overrides[setting.substr(0, eq)] = value;
+    if (!overrides.emplace(setting.substr(0, eq), value).second)
+      throw_input_error({"command line", 0}, "--set " + setting, fmt::format("sets '{}' a second time", setting.substr(0, eq)),
+                        "give each parameter once");
   }
   return overrides;
 }
@@ -78,6 +80,14 @@ std::string read_whole_file(const std::string& path) {
   std::ostringstream text;
   text << in.rdbuf();
   return text.str();
+}
+
+/// Before any output file replaces an old one: the printed summary must have reached standard
+/// output, or the run fails with the old files untouched.
+void require_summary_written() {
+  if (std::fflush(stdout) != 0 || std::ferror(stdout))
+    throw_input_error({"standard output", 0}, "printed summary", fmt::format("could not be written ({})", std::strerror(errno)),
+                      "free space on the disk or check where the output is redirected; no output file was changed");
 }
 
 /// --carry-forward: the system must have a length for every flanking element, as in the file.
@@ -121,6 +131,7 @@ int run_solve(const SolveArgs& args) {
   for (OutputFile& f : build_output_files(section, calc, outputs, provenance)) files.push_back(std::move(f));
   check_output_paths(files, {args.detail_file});  // every path is checked before the first file is written
   fmt::print("{}", summary_text(section, calc));
+  require_summary_written();
   write_output_files(files);
   for (const OutputFile& f : files) fmt::print("Written: {}\n", f.path);
   return 0;
@@ -172,6 +183,7 @@ int finish_variants(const std::string& heading, const std::vector<VariantSummary
   if (!csv_file.empty()) files.push_back({csv_file, variants_csv(variants, parameter_names)});
   if (!page_file.empty()) files.push_back({page_file, variants_page(heading, variants, parameter_names)});
   check_output_paths(files, inputs);
+  require_summary_written();
   write_output_files(files);
   for (const OutputFile& f : files) fmt::print("Written: {}\n", f.path);
   fmt::print("\nResults depend on the inputs and modelling choices; local building codes and a qualified professional "
@@ -197,6 +209,7 @@ int run_import(const ImportArgs& args) {
   if (!args.picture.empty()) files.push_back({args.picture, import_picture_svg(import)});
   check_output_paths(files, {args.drawing});
   fmt::print("{}", import_summary_text(import));
+  require_summary_written();
   write_output_files(files);
   for (const OutputFile& f : files) fmt::print("Written: {}\n", f.path);
   if (!args.detail.empty())
@@ -355,8 +368,8 @@ int main(int argc, char** argv) {
   try {
     app.parse(argc, argv);
   } catch (const CLI::ParseError& e) {
-    const int code = app.exit(e);  // prints the help or the usage message
-    return code == 0 ? 0 : 1;
+    const int code = with_output_flushed(app.exit(e));  // prints the help or the usage message
+    return code == 0 || code == 2 ? code : 1;
   }
   if (*solve_cmd || *sweep_cmd || *compare_cmd || *conformity_cmd)
     if (const auto problem = address_space_too_small()) {

@@ -2,6 +2,7 @@
 // can be, and each file appears whole or not at all.
 #include "app/output_writer.h"
 
+#include <sys/stat.h>
 #include <unistd.h>
 
 #include <filesystem>
@@ -34,6 +35,12 @@ void check_output_paths(const std::vector<OutputFile>& files, const std::vector<
         throw_input_error({f.path, 0}, "output file", "is named twice among the outputs, so one would overwrite the other",
                           "give each output its own name");
     seen.push_back(resolved);
+    // /dev/stdout or the file the summary is redirected to: the file would replace the summary.
+    struct stat out_stat {}, target_stat {};
+    if (::fstat(STDOUT_FILENO, &out_stat) == 0 && ::stat(resolved.c_str(), &target_stat) == 0 && out_stat.st_dev == target_stat.st_dev &&
+        out_stat.st_ino == target_stat.st_ino)
+      throw_input_error({f.path, 0}, "output file", "is where the printed summary goes (standard output), which it would replace",
+                        "give the output a file of its own");
     if (fs::is_directory(target, ec))
       throw_input_error({f.path, 0}, "output file", "is a folder", "give a file name, e.g. " + (target / "result").string());
     if (fs::exists(resolved, ec)) {
@@ -51,7 +58,10 @@ void check_output_paths(const std::vector<OutputFile>& files, const std::vector<
     if (!fs::is_directory(folder, ec)) {
       // A folder of its own (--svg-dir, --png-dir) may be created, one level deep.
       const fs::path parent = folder.has_parent_path() ? folder.parent_path() : fs::path(".");
-      if (!f.creates_folder || fs::exists(folder, ec) || !fs::is_directory(parent, ec))
+      if (fs::exists(folder, ec))
+        throw_input_error({f.path, 0}, "output file", "\"" + folder.string() + "\" is a file, not a folder",
+                          "choose a path in a folder, or rename that file");
+      if (!f.creates_folder || !fs::is_directory(parent, ec))
         throw_input_error({f.path, 0}, "output file", "the folder \"" + folder.string() + "\" does not exist",
                           "create the folder first or choose another path");
       existing = parent;

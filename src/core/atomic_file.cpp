@@ -10,6 +10,7 @@
 #include <cerrno>
 #include <climits>
 #include <csignal>
+#include <cstdlib>
 #include <cstring>
 #include <filesystem>
 
@@ -40,8 +41,7 @@ void install_handlers_once() {
     struct sigaction action {};
     action.sa_handler = remove_temporaries_and_die;
     sigemptyset(&action.sa_mask);
-    ::sigaction(SIGINT, &action, nullptr);
-    ::sigaction(SIGTERM, &action, nullptr);
+    for (int signal_number : {SIGINT, SIGTERM, SIGHUP, SIGQUIT}) ::sigaction(signal_number, &action, nullptr);
     return true;
   }();
   (void)installed;
@@ -85,6 +85,25 @@ class Temporaries {
   std::vector<fs::path> paths_;
 };
 
+/// Temporaries of `target` left by runs that were killed outright (kill -9, power loss): their
+/// names carry the writer's process id; a process that no longer exists will not finish them.
+void remove_stale_temporaries(const fs::path& folder, const fs::path& target) {
+  const std::string prefix = "." + target.filename().string() + ".partial-";
+  std::error_code ec;
+  for (fs::directory_iterator it(folder, ec), end; !ec && it != end; it.increment(ec)) {
+    const std::string name = it->path().filename().string();
+    if (name.rfind(prefix, 0) != 0) continue;
+    const std::string rest = name.substr(prefix.size());
+    const std::size_t dash = rest.find('-');
+    if (dash == std::string::npos || dash == 0 || rest.find_first_not_of("0123456789") != dash) continue;
+    const long pid = std::strtol(rest.substr(0, dash).c_str(), nullptr, 10);
+    if (pid > 0 && pid != ::getpid() && ::kill(static_cast<pid_t>(pid), 0) != 0 && errno == ESRCH) {
+      std::error_code ignored;
+      fs::remove(it->path(), ignored);
+    }
+  }
+}
+
 }  // namespace
 
 void write_files_atomically(const std::vector<FileToWrite>& files) {
@@ -101,8 +120,10 @@ void write_files_atomically(const std::vector<FileToWrite>& files) {
     if (!fs::is_directory(folder, ec))
       throw_input_error({f.path, 0}, "output file", "the folder \"" + folder.string() + "\" does not exist",
                         "create the folder first or choose another path");
-    // A unique name per process and file: two runs writing the same output never share it.
-    std::string name = (folder / ("." + target.filename().string() + ".partial-XXXXXX")).string();
+    remove_stale_temporaries(folder, target);
+    // A unique name per process and file: two runs writing the same output never share it; the
+    // process id lets a later run recognise a temporary whose writer was killed.
+    std::string name = (folder / ("." + target.filename().string() + ".partial-" + std::to_string(::getpid()) + "-XXXXXX")).string();
     const int fd = ::mkstemp(name.data());
     if (fd < 0)
       throw_input_error({f.path, 0}, "output file", std::string("cannot be written (") + std::strerror(errno) + ")",

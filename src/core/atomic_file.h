@@ -15,8 +15,9 @@ struct FileToWrite {
 /// Writes every file or none: each goes to a temporary file of its own, with a unique name, in
 /// the folder of its target (a symlinked target: the folder of the file it points to); only when
 /// all are complete and flushed are they renamed into place, one after the other. On any failure
-/// the temporaries are removed and the old files stay as they were; on SIGINT or SIGTERM during
-/// the writing, too. Throws InputError naming the file and the cause (folder missing, disk full).
+/// the temporaries are removed and the old files stay as they were; on SIGINT, SIGTERM, SIGHUP or
+/// SIGQUIT during the writing, too. Temporaries a killed run left behind (their writer's process
+/// id is in the name) are removed by the next run that writes the same file. Throws InputError naming the file and the cause (folder missing, disk full).
 void write_files_atomically(const std::vector<FileToWrite>& files);
 
 /// One file, the same way.

@@ -29,8 +29,9 @@ std::string format_input_error(const SourceLocation& where, const std::string& o
                                const std::string& fix) {
   std::string place = where.file.empty() ? std::string("input") : shortened(where.file, 300);
   if (where.line > 0) place += fmt::format(":{}", where.line);
-  std::string message = fmt::format("{}: {}: {}", place, shortened(object, 200), shortened(problem, 600));
-  if (!fix.empty()) message += fmt::format(". Fix: {}", fix);
+  // Each part quotes the user's text at most in part: a message stays a few lines long whatever the input.
+  std::string message = fmt::format("{}: {}: {}", place, shortened(object, 200), shortened(problem, 400));
+  if (!fix.empty()) message += fmt::format(". Fix: {}", shortened(fix, 400));
   return message;
 }
 

@@ -151,7 +151,8 @@ std::string json_results(const CrossSection& section, const Calculation& calc) {
   j["solver"] = {{"linear_solver", calc.heat_loss.info.solver}, {"unknowns", calc.heat_loss.info.n_unknowns}};
   j["timings_s"] = {{"mesh", calc.timings.mesh_seconds}, {"assemble", calc.heat_loss.info.assemble_seconds},
                     {"factorize", calc.heat_loss.info.factorize_seconds}, {"solve", calc.heat_loss.info.solve_seconds}};
-  return j.dump(2) + "\n";
+  // A file name that is not UTF-8 is written with U+FFFD in its place, not refused after the solve.
+  return j.dump(2, ' ', false, nlohmann::ordered_json::error_handler_t::replace) + "\n";
 }
 
 }  // namespace edgeflux

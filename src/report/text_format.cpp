@@ -2,9 +2,15 @@
 
 #include <fmt/format.h>
 
+#include "core/utf8.h"
+
 namespace edgeflux {
 
-std::string xml_escape(std::string_view text) {
+std::string xml_escape(std::string_view raw) {
+  // File names may hold bytes that are not UTF-8 (the detail's text was checked when read); they
+  // show as U+FFFD rather than make the page invalid.
+  const std::string checked = invalid_utf8_at(raw) == std::string_view::npos ? std::string() : valid_utf8(raw);
+  const std::string_view text = checked.empty() ? raw : std::string_view(checked);
   std::string out;
   out.reserve(text.size());
   for (char c : text) {

@@ -139,6 +139,10 @@ JunctionResults junction_results(const CrossSection& section, const TriMesh& mes
   // θsi,min, fRsi and weighting factors from the surface-temperature run.
   r.min_interior_surface = coldest_interior(section, mesh, surface_temperature, std::nullopt);
   find_junction_minimum(section, mesh, surface_temperature, r);
+  if (!r.min_interior_surface &&
+      std::any_of(section.surfaces.begin(), section.surfaces.end(), [&](const Surface& s) { return section.environments[s.environment].side == Side::interior; }))
+    r.warnings.push_back("no θsi,min, fRsi or moisture verdict: every surface facing the interior is a fixed temperature (resistance 0); "
+                         "give those surfaces their Rsi to assess them");
   r.pair_psi = pair_psi(section, r);
   r.interior_environment = only_environment_on(section, Side::interior);
   r.exterior_environment = only_environment_on(section, Side::exterior);

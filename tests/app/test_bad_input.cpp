@@ -136,6 +136,9 @@ TEST_CASE("command-line values: NaN and infinity refused, one parameter varied t
   Run run = run_program("sweep -q " + sweep + " --vary lambda_connector=0.1:0.2:2 --vary lambda_connector=0.3:0.4:2");
   CHECK(run.exit_code == 2);
   CHECK(run.output.find("varies lambda_connector a second time") != std::string::npos);
+  run = run_program("solve -q " + sweep + " --set lambda_connector=0.1 --set lambda_connector=0.2");
+  CHECK(run.exit_code == 2);
+  CHECK(run.output.find("sets 'lambda_connector' a second time") != std::string::npos);
   run = run_program("slove " + detail);
   CHECK(run.exit_code == 1);
   CHECK(run.output.find("\"slove\" is not a command; the commands are solve") != std::string::npos);
@@ -151,6 +154,12 @@ TEST_CASE("a huge value in the input is quoted shortened: the message stays one 
   CHECK(run.output.size() < 1200);  // common practice: a message a terminal shows in a few lines
   CHECK(run.output.find("characters left out") != std::string::npos);
   CHECK(run.output.find("huge.xml:4:") != std::string::npos);
+  // A huge reference to a material: the fix that names it is shortened too.
+  std::ofstream(input) << edgeflux::test::detail_xml(
+      replace(good_body, "material=\"brick\" from", "material=\"" + std::string(1'000'000, 'b') + "\" from"));
+  const Run reference = run_program("solve -q '" + input.string() + "'");
+  CHECK(reference.exit_code == 2);
+  CHECK(reference.output.size() < 1200);
   fs::remove(input);
 }
 

@@ -5,6 +5,7 @@
 #include <doctest/doctest.h>
 
 #include <sys/stat.h>
+#include <unistd.h>
 
 #include <filesystem>
 #include <fstream>
@@ -114,6 +115,51 @@ TEST_CASE("results that cannot be written to standard output end with exit 2 (a 
   const auto run = run_program("solve -q " + f.q(f.detail) + " > /dev/full");
   CHECK(run.exit_code == 2);
   CHECK(run.output.find("standard output") != std::string::npos);
+  // With output files: the summary is checked first, so the old files stay as they were.
+  const fs::path json = f.path / "r.json";
+  std::ofstream(json) << "old";
+  const auto with_json = run_program("solve -q " + f.q(f.detail) + " --json " + f.q(json) + " > /dev/full");
+  CHECK(with_json.exit_code == 2);
+  CHECK(read_all(json) == "old");
+  // Help that cannot be printed is a failure too.
+  CHECK(run_program("--help > /dev/full").exit_code == 2);
+}
+
+TEST_CASE("an output that is where the summary goes, or in a 'folder' that is a file, is refused with what it is") {
+  Folder f;
+  const fs::path summary = f.path / "summary.txt";
+  const auto into_stdout = run_program("solve -q " + f.q(f.detail) + " --surface-csv /dev/stdout > " + f.q(summary));
+  CHECK(into_stdout.exit_code == 2);
+  CHECK(into_stdout.output.find("is where the printed summary goes") != std::string::npos);
+  std::ofstream(f.path / "afile") << "x";
+  const auto under_file = run_program("solve -q " + f.q(f.detail) + " --vtu " + f.q(f.path / "afile" / "r.vtu"));
+  CHECK(under_file.exit_code == 2);
+  CHECK(under_file.output.find("is a file, not a folder") != std::string::npos);
+}
+
+TEST_CASE("temporaries of a run killed outright (kill -9) are removed by the next run writing that file; a live writer's are kept") {
+  Folder f;
+  // Process ids above the kernel's pid_max (4194304 at most) never belong to a process.
+  const fs::path stale = f.path / ".r.json.partial-4194399-abcdef", live = f.path / (".r.json.partial-" + std::to_string(::getpid()) + "-ghijkl");
+  std::ofstream(stale) << "half";
+  std::ofstream(live) << "being written";
+  const auto run = run_program("solve -q " + f.q(f.detail) + " --json " + f.q(f.path / "r.json"));
+  CHECK(run.exit_code == 0);
+  CHECK_FALSE(fs::exists(stale));
+  CHECK(fs::exists(live));
+}
+
+TEST_CASE("a hang-up (SIGHUP) while writing leaves no temporary either") {
+  Folder f;
+  const fs::path vtu = f.path / "field.vtu";
+  for (const char* delay : {"0.3", "0.6", "0.9"}) {
+    CAPTURE(delay);
+    edgeflux::test::run_shell(std::string("timeout -s HUP ") + delay + " " + std::string(EDGEFLUX_BINARY) + " solve -q " +
+                              f.q(edgeflux::test::source_path("examples/intermediate-floor.xml")) +
+                              " --fixed-mesh --density 8 --vtu " + f.q(vtu) + " >/dev/null");
+    CHECK(!has_temporaries(f.path));
+    if (fs::exists(vtu)) CHECK(read_all(vtu).find("</VTKFile>") != std::string::npos);
+  }
 }
 
 TEST_CASE("under a memory limit, a refinement that runs out of memory keeps the levels already solved") {
