@@ -30,6 +30,7 @@
 #include "report/import_files.h"
 #include "report/import_picture.h"
 #include "report/json_results.h"
+#include "report/number_format.h"
 #include "report/variants_page.h"
 #include "report/html_report.h"
 #include "report/output_files.h"
@@ -161,8 +162,20 @@ int finish_variants(const std::string& heading, const std::vector<VariantSummary
   // The first column is as wide as the longest label, so long parameter names keep the columns aligned.
   std::size_t width = 7;
   for (const VariantSummary& v : variants) width = std::max(width, v.label.size());
-  fmt::print("  {:<{}} {:>20} {:>20} {:>8} {:>9}  {}\n", "variant", width, "ψ external", "ψ internal", "fRsi", "required", "verdict");
+  const bool glazing = std::any_of(variants.begin(), variants.end(), [](const VariantSummary& v) {
+    return std::any_of(v.verdicts.begin(), v.verdicts.end(), [](const KindVerdict& k) { return k.kind == SurfaceKind::glazing; });
+  });
+  auto kind_columns = [](const VariantSummary& v, SurfaceKind kind) {
+    for (const KindVerdict& k : v.verdicts)
+      if (k.kind == kind)
+        return fmt::format("{:>7} {:>9}  {:<19}", fixed(k.temperature_factor, digits::temperature_factor),
+                           fixed(k.required_temperature_factor, digits::temperature_factor), criteria_outcome(k.criteria));
+    return fmt::format("{:>7} {:>9}  {:<19}", "—", "—", "");
+  };
+  fmt::print("  {:<{}} {:>11} {:>11}  {:>7} {:>9}  {:<19}{}\n", "variant", width, "ψ external", "ψ internal", "fRsi", "required",
+             "opaque surfaces", glazing ? fmt::format(" {:>7} {:>9}  {}", "fRsi", "required", "glazing and frames") : "");
   int failed = 0;
+  double largest_error = 0.0;
   for (const VariantSummary& v : variants) {
     if (!v.error.empty()) {
       fmt::print("  {:<{}} not calculated: {}\n", v.label, width, v.error);
@@ -171,17 +184,20 @@ int finish_variants(const std::string& heading, const std::vector<VariantSummary
     }
     auto psi = [&](DimensionSystem s) {
       for (std::size_t i = 0; i < v.psi.size(); ++i)
-        if (v.psi[i].system == s) return fmt::format("{:+.4f} ± {:.4f}", v.psi[i].psi, v.psi_error[i]);
-      return std::string("—");
+        if (v.psi[i].system == s) return fixed(v.psi[i].psi, digits::psi) + (v.carried_forward == s ? "*" : " ");
+      return std::string("— ");
     };
-    fmt::print("  {:<{}} {:>20} {:>20} {:>8} {:>9}  {}\n", v.label, width, psi(DimensionSystem::external), psi(DimensionSystem::internal),
-               v.temperature_factor ? fmt::format("{:.3f}", *v.temperature_factor) : "—",
-               v.required_temperature_factor ? fmt::format("{:.3f}", *v.required_temperature_factor) : "—",
-               v.passes ? (*v.passes ? "passes" : "FAILS") : "—");
+    for (double e : v.psi_error) largest_error = std::max(largest_error, e);
+    fmt::print("  {:<{}} {:>11} {:>11}  {}{}\n", v.label, width, psi(DimensionSystem::external), psi(DimensionSystem::internal),
+               kind_columns(v, SurfaceKind::opaque), glazing ? " " + kind_columns(v, SurfaceKind::glazing) : "");
   }
+  fmt::print("\n  ψ in W/(m·K); * the system carried forward; largest estimated discretisation error of ψ: {} W/(m·K).\n"
+             "  fRsi from the surface-temperature run (ISO 13788, Rsi 0.25 opaque, 0.13 glazing); required: the highest criterion"
+             " (ISO 13788 and any national minimum), each stated in the page and the CSV.\n",
+             error_text(largest_error, digits::psi));
   std::vector<OutputFile> files;
   if (!csv_file.empty()) files.push_back({csv_file, variants_csv(variants, parameter_names)});
-  if (!page_file.empty()) files.push_back({page_file, variants_page(heading, variants, parameter_names)});
+  if (!page_file.empty()) files.push_back({page_file, variants_page(heading, variants, parameter_names, report_timestamp())});
   check_output_paths(files, inputs);
   require_summary_written();
   write_output_files(files);

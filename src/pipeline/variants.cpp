@@ -8,9 +8,12 @@
 #include <atomic>
 #include <chrono>
 #include <filesystem>
+#include <fstream>
+#include <sstream>
 #include <mutex>
 #include <thread>
 
+#include "core/sha256.h"
 #include "solver/factorisation_runtime.h"
 #include "solver/solve_temperatures.h"
 
@@ -36,13 +39,16 @@ VariantSummary summarise(const std::string& label, const std::string& file, cons
     v.psi_error.push_back(i < calc.convergence.psi.size() ? calc.convergence.psi[i].error : 0.0);
   if (calc.junction.min_interior_surface) v.min_surface_temperature = calc.junction.min_interior_surface->temperature;
   v.temperature_factor = calc.junction.temperature_factor;
-  for (const MoistureResult& m : calc.junction.moisture) {
-    // The verdict of a variant is its worst surface kind.
-    if (!v.passes || (*v.passes && !m.assessment.passes)) {
-      v.passes = m.assessment.passes;
-      v.required_temperature_factor = m.assessment.required_temperature_factor;
-      v.governing_requirement = m.assessment.governing_requirement;
-    }
+  for (const MoistureResult& m : calc.junction.moisture)
+    v.verdicts.push_back({m.kind, m.assessment.actual_temperature_factor, m.assessment.required_temperature_factor, m.assessment.criteria,
+                          m.assessment.passes});
+  v.carried_forward = section.carried_forward;
+  if (calc.junction.climate) {
+    const Climate& c = *calc.junction.climate;
+    v.climate = fmt::format("{:.1f} °C and {} inside, {:.1f} °C outside{}{}", c.interior_temperature,
+                            c.interior_relative_humidity ? fmt::format("{:.0f} % RH", 100 * *c.interior_relative_humidity)
+                                                         : fmt::format("humidity class {}", c.humidity_class.value_or(0)),
+                            c.exterior_temperature, c.rule == "none" ? "" : ", rule " + c.rule, calc.junction.climate_assumed ? " (assumed)" : "");
   }
   v.nodes = calc.mesh.n_points();
   v.seconds = calc.total_seconds;
@@ -83,6 +89,10 @@ VariantSummary run_one(const std::string& label, const std::string& file, const 
     quiet.progress = nullptr;
     VariantSummary v = summarise(label, file, section, calculate(section, quiet));
     v.parameters = overrides;
+    std::ifstream in(file, std::ios::binary);
+    std::ostringstream text;
+    text << in.rdbuf();
+    v.input_sha256 = sha256_hex(text.str());
     return v;
   } catch (const std::exception& e) {
     VariantSummary v;

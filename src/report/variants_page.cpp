@@ -9,6 +9,7 @@
 #include <set>
 
 #include "physics/moisture_verdict.h"
+#include "report/number_format.h"
 #include "report/text_format.h"
 
 namespace edgeflux {
@@ -24,6 +25,12 @@ std::optional<double> psi_of(const VariantSummary& v, DimensionSystem s) {
   for (const PsiValue& p : v.psi)
     if (p.system == s) return p.psi;
   return std::nullopt;
+}
+
+const KindVerdict* verdict_of(const VariantSummary& v, SurfaceKind kind) {
+  for (const KindVerdict& k : v.verdicts)
+    if (k.kind == kind) return &k;
+  return nullptr;
 }
 
 std::set<DimensionSystem> systems_present(const std::vector<VariantSummary>& variants) {
@@ -108,7 +115,9 @@ std::string variants_csv(const std::vector<VariantSummary>& variants, const std:
   for (const std::string& name : parameter_names) out += "," + csv_field(name);
   out += ",l2d_w_per_mk,l2d_error_w_per_mk";
   for (DimensionSystem s : systems) out += fmt::format(",{0}_w_per_mk,{0}_error_w_per_mk", system_column(s));
-  out += ",min_interior_surface_temperature_c,frsi,required_frsi,passes,nodes,error\n";
+  out += ",min_interior_surface_temperature_c,frsi";
+  for (const char* kind : {"opaque", "glazing"}) out += fmt::format(",frsi_{0},required_frsi_{0},criteria_{0}", kind);
+  out += ",criteria_statements,climate,input_sha256,nodes,error\n";
   auto number = [](const std::optional<double>& v) { return v ? fmt::format("{:.9g}", *v) : std::string(); };
   for (const VariantSummary& v : variants) {
     out += csv_field(v.label);
@@ -121,48 +130,85 @@ std::string variants_csv(const std::vector<VariantSummary>& variants, const std:
         if (v.psi[i].system == s && i < v.psi_error.size()) error = v.psi_error[i];
       out += "," + number(psi_of(v, s)) + "," + number(error);
     }
-    out += "," + number(v.min_surface_temperature) + "," + number(v.temperature_factor) + "," +
-           number(v.required_temperature_factor) + "," + (v.passes ? (*v.passes ? "yes" : "no") : "") + "," +
+    out += "," + number(v.min_surface_temperature) + "," + number(v.temperature_factor);
+    std::string statements;
+    for (SurfaceKind kind : {SurfaceKind::opaque, SurfaceKind::glazing}) {
+      const KindVerdict* k = verdict_of(v, kind);
+      out += "," + (k ? number(k->temperature_factor) + "," + number(k->required_temperature_factor) + "," + criteria_outcome(k->criteria) : ",,");
+      if (k)
+        for (const CriterionCheck& c : k->criteria)
+          statements += (statements.empty() ? "" : "; ") + std::string(kind == SurfaceKind::glazing ? "glazing and frames: " : "opaque: ") +
+                        criterion_statement(c, k->temperature_factor);
+    }
+    out += "," + csv_field(statements) + "," + csv_field(v.climate) + "," + v.input_sha256 + "," +
            (v.error.empty() ? std::to_string(v.nodes) : "") + "," + csv_field(v.error) + "\n";
   }
   return out;
 }
 
 std::string variants_page(const std::string& heading, const std::vector<VariantSummary>& variants,
-                          const std::vector<std::string>& parameter_names) {
+                          const std::vector<std::string>& parameter_names, const std::string& generated) {
   const auto systems = systems_present(variants);
+  const bool glazing = std::any_of(variants.begin(), variants.end(), [](const VariantSummary& v) { return verdict_of(v, SurfaceKind::glazing); });
+  std::set<std::string> climates;
+  double largest_error = 0.0;
+  for (const VariantSummary& v : variants) {
+    if (!v.climate.empty()) climates.insert(v.climate);
+    for (double e : v.psi_error) largest_error = std::max(largest_error, e);
+  }
   std::string html = fmt::format(
       "<!DOCTYPE html><html lang=\"en\"><head><meta charset=\"utf-8\"><title>{0}</title><style>"
-      "body{{font-family:system-ui,sans-serif;margin:2em;color:#222;max-width:1100px}}"
-      "table{{border-collapse:collapse;margin:1em 0;font-size:14px}}th,td{{border:1px solid #bbb;padding:4px 8px;text-align:right;white-space:nowrap}}"
-      "th{{background:#eef2f6}}td.l{{text-align:left}}.fail{{color:#B00020;font-weight:600}}.pass{{color:#006B3C;font-weight:600}}"
-      ".caution{{background:#fff8e1;border-left:4px solid #E69F00;padding:0.5em 1em}}figure{{margin:1em 0}}"
-      "@media print{{body{{margin:1cm}}figure{{break-inside:avoid}}}}</style></head><body><h1>{0}</h1>"
-      "<p>edgeflux {1}. ψ in W/(m·K) with the estimated discretisation error; fRsi from the surface-temperature run "
-      "(ISO 13788: interior Rsi 0.25 m²K/W).</p>",
-      xml_escape(heading), EDGEFLUX_VERSION);
+      "body{{font-family:\"DejaVu Sans\",system-ui,sans-serif;margin:2em;color:#222;max-width:1100px;font-size:14px}}"
+      "table{{border-collapse:collapse;margin:1em 0;font-size:13px}}th,td{{border:1px solid #bbb;padding:3px 6px;text-align:right}}"
+      "td{{white-space:nowrap}}th{{background:#eef2f6}}td.l,th.l{{text-align:left}}td.w{{white-space:normal;text-align:left;font-size:11px}}"
+      ".notmet{{color:#B00020;font-weight:600}}.met{{color:#006B3C;font-weight:600}}"
+      ".caution{{background:#fff8e1;border-left:4px solid #E69F00;padding:0.5em 1em}}figure{{margin:1em 0}}figure svg{{max-width:100%;height:auto}}"
+      "code{{font-size:11px}}"
+      "@page{{margin:14mm 12mm;@top-left{{content:\"{2}\";font-size:8pt;color:#555}}@bottom-right{{content:\"page \" counter(page) \" of \" counter(pages);font-size:8pt;color:#555}}}}"
+      "@media print{{body{{margin:0;max-width:none;font-size:10px}}table{{font-size:9px}}figure{{break-inside:avoid}}tr{{break-inside:avoid}}}}"
+      "</style></head><body><h1>{0}</h1>"
+      "<p>edgeflux {1}, calculated {3}. ψ in W/(m·K), rounded to {4} decimals; largest estimated discretisation error of ψ over "
+      "all variants {5} W/(m·K); * marks the dimension system carried forward. f<sub>Rsi</sub> from the surface-temperature run "
+      "(ISO 13788: interior Rsi 0.25 m²K/W opaque, 0.13 glazing); opaque surfaces and glazing/frames are judged apart.</p>",
+      xml_escape(heading), EDGEFLUX_VERSION, xml_escape(heading).substr(0, 80), xml_escape(generated), digits::psi,
+      error_text(largest_error, digits::psi));
+  html += "<p><b>Climate of the criteria:</b> ";
+  for (const std::string& c : climates) html += xml_escape(c) + (c == *climates.rbegin() ? "" : "; ");
+  html += climates.empty() ? "none (no interior/exterior pair)</p>" : "</p>";
   html += "<table><tr><th class=\"l\">variant</th>";
   for (DimensionSystem s : systems) html += fmt::format("<th>ψ {}</th>", dimension_system_name(s));
-  html += "<th>L2D</th><th>θsi,min [°C]</th><th>fRsi</th><th>required</th><th>verdict</th><th>nodes</th></tr>";
+  html += "<th>L<sub>2D</sub></th><th>θ<sub>si,min</sub> [°C]</th><th>f<sub>Rsi</sub> opaque</th><th>required</th><th class=\"l\">opaque surfaces</th>";
+  if (glazing) html += "<th>f<sub>Rsi</sub> glazing</th><th>required</th><th class=\"l\">glazing and frames</th>";
+  html += "<th class=\"l\">input SHA-256</th></tr>";
+  const std::size_t columns = systems.size() + 6 + (glazing ? 3 : 0);
+  auto kind_cells = [](const VariantSummary& v, SurfaceKind kind) {
+    const KindVerdict* k = verdict_of(v, kind);
+    if (!k) return std::string("<td>—</td><td>—</td><td></td>");
+    return fmt::format("<td>{}</td><td>{}</td><td class=\"l {}\">{}</td>", fixed(k->temperature_factor, digits::temperature_factor),
+                       fixed(k->required_temperature_factor, digits::temperature_factor), k->met ? "met" : "notmet", criteria_outcome(k->criteria));
+  };
   for (const VariantSummary& v : variants) {
     html += fmt::format("<tr><td class=\"l\">{}</td>", xml_escape(v.label));
     if (!v.error.empty()) {
-      html += fmt::format("<td class=\"l fail\" colspan=\"{}\">not calculated: {}</td></tr>", systems.size() + 6, xml_escape(v.error));
+      html += fmt::format("<td class=\"l notmet\" colspan=\"{}\">not calculated: {}</td></tr>", columns, xml_escape(v.error));
       continue;
     }
     for (DimensionSystem s : systems) {
       std::string cell = "—";
-      for (std::size_t i = 0; i < v.psi.size(); ++i)
-        if (v.psi[i].system == s) cell = fmt::format("{:+.4f} ± {:.4f}", v.psi[i].psi, v.psi_error[i]);
+      if (auto p = psi_of(v, s)) cell = fixed(*p, digits::psi) + (v.carried_forward == s ? "*" : "");
       html += "<td>" + cell + "</td>";
     }
-    html += fmt::format("<td>{}</td><td>{}</td><td>{}</td><td>{}</td><td class=\"{}\">{}</td><td>{}</td></tr>",
-                        v.coupling_2d ? fmt::format("{:.4f}", *v.coupling_2d) : "—",
-                        v.min_surface_temperature ? fmt::format("{:.2f}", *v.min_surface_temperature) : "—",
-                        v.temperature_factor ? fmt::format("{:.3f}", *v.temperature_factor) : "—",
-                        v.required_temperature_factor ? fmt::format("{:.3f}", *v.required_temperature_factor) : "—",
-                        v.passes ? (*v.passes ? "pass" : "fail") : "", v.passes ? (*v.passes ? "passes" : "fails") : "—",
-                        v.nodes);
+    html += fmt::format("<td>{}</td><td>{}</td>", v.coupling_2d ? fixed(*v.coupling_2d, digits::coupling) : "—",
+                        v.min_surface_temperature ? fixed(*v.min_surface_temperature, digits::surface_temperature) : "—");
+    html += kind_cells(v, SurfaceKind::opaque);
+    if (glazing) html += kind_cells(v, SurfaceKind::glazing);
+    html += fmt::format("<td class=\"l\"><code>{}</code></td></tr>", v.input_sha256.substr(0, 12));
+    std::string statements;
+    for (const KindVerdict& k : v.verdicts)
+      for (const CriterionCheck& c : k.criteria)
+        statements += fmt::format("{}{}: {}", statements.empty() ? "" : "; ", k.kind == SurfaceKind::glazing ? "glazing and frames" : "opaque",
+                                  xml_escape(criterion_statement(c, k.temperature_factor)));
+    if (!statements.empty()) html += fmt::format("<tr><td></td><td class=\"w\" colspan=\"{}\">{}</td></tr>", columns - 1, statements);
   }
   html += "</table>";
 
@@ -189,13 +235,13 @@ std::string variants_page(const std::string& heading, const std::vector<VariantS
       Series line{group_name(key, "fRsi"), {}};
       for (const VariantSummary* v : members) {
         if (v->temperature_factor) line.points.push_back({v->parameters.at(x_name), *v->temperature_factor});
-        if (v->required_temperature_factor) required = *v->required_temperature_factor;
+        if (const KindVerdict* k = verdict_of(*v, SurfaceKind::opaque)) required = k->required_temperature_factor;
       }
       frsi_series.push_back(line);
     }
     html += "<figure>" + line_plot("Linear thermal transmittance ψ", x_name, "ψ [W/(m·K)]", psi_series, {}) + "</figure>";
     std::vector<std::pair<double, std::string>> limits;
-    if (required) limits.push_back({*required, fmt::format("required {:.3f}", *required)});
+    if (required) limits.push_back({*required, fmt::format("required (opaque) {:.3f}", *required)});
     html += "<figure>" + line_plot("Temperature factor fRsi", x_name, "fRsi [–]", frsi_series, limits) + "</figure>";
   }
   html += "<div class=\"caution\"><p><strong>Cautions</strong></p><ul>";

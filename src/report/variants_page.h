@@ -8,13 +8,16 @@
 
 namespace edgeflux {
 
-/// One row per variant: the varied parameters, L2D, ψ per system with error bars, θsi,min, fRsi,
-/// required fRsi, verdict, nodes, error. `parameter_names` fixes the parameter columns.
+/// One row per variant: the varied parameters, L2D, ψ per system with error bars, θsi,min, fRsi;
+/// per kind of surface (opaque, glazing) fRsi, required fRsi and the criteria outcome; every
+/// criterion in words; the climate, the input's SHA-256, nodes, error. `parameter_names` fixes the parameter columns.
 std::string variants_csv(const std::vector<VariantSummary>& variants, const std::vector<std::string>& parameter_names);
 
 /// The page: a table with every variant, and for sweeps line plots of ψ and fRsi against the first
-/// parameter (one line per value of the second), with the required fRsi drawn. Cautions included.
+/// parameter (one line per value of the second), with the required fRsi drawn. Opaque and glazing
+/// verdicts apart, each criterion in words, the climate, the time `generated`, input hashes, print
+/// rules with page numbers. Cautions included.
 std::string variants_page(const std::string& heading, const std::vector<VariantSummary>& variants,
-                          const std::vector<std::string>& parameter_names);
+                          const std::vector<std::string>& parameter_names, const std::string& generated);
 
 }  // namespace edgeflux

@@ -11,6 +11,16 @@
 
 namespace edgeflux {
 
+/// The criteria checked on one kind of interior surface (opaque: mould; glazing and frames:
+/// condensation), kept apart so a frame's fRsi is never set against the opaque requirement.
+struct KindVerdict {
+  SurfaceKind kind = SurfaceKind::opaque;
+  double temperature_factor = 0;        ///< fRsi of the coldest surface of this kind
+  double required_temperature_factor = 0;  ///< the highest of the criteria
+  std::vector<CriterionCheck> criteria;
+  bool met = false;                     ///< every criterion met
+};
+
 /// What a consultant reads off one variant.
 struct VariantSummary {
   std::string label;                  ///< file name or "name=value, ..."
@@ -23,9 +33,10 @@ struct VariantSummary {
   std::vector<double> psi_error;
   std::optional<double> min_surface_temperature;  ///< °C
   std::optional<double> temperature_factor;       ///< fRsi
-  std::optional<double> required_temperature_factor;
-  std::optional<bool> passes;
-  std::string governing_requirement;
+  std::vector<KindVerdict> verdicts;  ///< opaque first, then glazing and frames, where present
+  std::optional<DimensionSystem> carried_forward;
+  std::string climate;                ///< the climate of the criteria in words, empty without one
+  std::string input_sha256;           ///< of the detail file as read
   int nodes = 0;
   double seconds = 0.0;
   std::vector<std::string> warnings;
