@@ -97,6 +97,8 @@ std::string results_table(const CrossSection& section, const Calculation& calc) 
       h += row("The junction's own lowest θ<sub>si</sub>", fixed(j.junction_minimum->temperature, digits::surface_temperature) + " °C",
                fmt::format("at {} on “{}”, away from the cut-off planes", user_point(section, j.junction_minimum->at),
                            escape(section.surfaces[j.junction_minimum->surface].name)));
+    else if (j.plain_element_governs)
+      h += row("The junction's own lowest θ<sub>si</sub>", "—", "the interior surfaces warm steadily towards the junction: it has no colder point of its own");
   }
   if (j.temperature_factor)
     h += row("Temperature factor f<sub>Rsi</sub>", fixed(*j.temperature_factor, digits::temperature_factor),

@@ -103,6 +103,8 @@ std::string summary_text(const CrossSection& section, const Calculation& calc) {
       if (junction.junction_minimum)
         line(fmt::format("    the junction's own lowest: {} °C at {} on surface '{}'", fixed(junction.junction_minimum->temperature, digits::surface_temperature),
                          at(junction.junction_minimum->at), section.surfaces[junction.junction_minimum->surface].name));
+      else
+        line("    the interior surfaces warm steadily towards the junction: it has no colder point of its own");
     }
   } else {
     // Say which of the two reasons holds: no interior environment, or only fixed temperatures facing it.
