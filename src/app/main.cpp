@@ -4,6 +4,7 @@
 //   4  the conformity check found a value outside the ISO 10211 tolerance
 #include <CLI/CLI.hpp>
 #include <sys/resource.h>
+#include <unistd.h>
 #include <fmt/format.h>
 #include <fmt/ranges.h>
 
@@ -14,6 +15,7 @@
 #include <cerrno>
 #include <cstdlib>
 #include <cstring>
+#include <filesystem>
 #include <fstream>
 #include <iostream>
 #include <optional>
@@ -117,6 +119,15 @@ int run_solve(const SolveArgs& args) {
   options.target = args.target;
 
   CrossSection section = read_detail_file(args.detail_file, parse_settings(args.parameter_settings), arc_tolerance_for(options.target));
+  // The output paths are checked before the solve too, so a long run is not wasted on a bad path.
+  {
+    std::vector<OutputFile> planned;
+    for (const std::string* path : {&args.json_file, &args.outputs.html_report, &args.outputs.vtu_file, &args.outputs.surface_csv})
+      if (!path->empty()) planned.push_back({*path, ""});
+    for (const std::string* folder : {&args.outputs.svg_folder, &args.outputs.png_folder})
+      if (!folder->empty()) planned.push_back({(std::filesystem::path(*folder) / "detail.svg").string(), "", true});
+    check_output_paths(planned, {args.detail_file});
+  }
   if (!args.carry_forward.empty()) carry_forward(section, *dimension_system_from_word(args.carry_forward));
   const Calculation calc = calculate(section, options);
   // Every output is built in memory first, so a failure leaves no file behind.
@@ -251,7 +262,7 @@ std::optional<std::string> address_space_too_small() {
 /// a closed pipe there is an error, not a silent empty file.
 int with_output_flushed(int code) {
   if (std::fflush(stdout) != 0 || std::ferror(stdout)) {
-    fmt::print(stderr, "edgeflux: error: standard output: the results could not be written ({}). Fix: free space on the "
+    fmt::print(stderr, "edgeflux: error: standard output: what was printed could not be written ({}). Fix: free space on the "
                        "disk or check where the output is redirected\n", std::strerror(errno));
     return 2;
   }
@@ -280,6 +291,11 @@ std::function<void(int, int)> variant_progress(bool quiet) {
 }  // namespace
 
 int main(int argc, char** argv) {
+  // Everything printed stays in one buffer until the end (or until checked before output files are
+  // replaced), so a standard output that cannot take it is found by one flush, never half-way
+  // through a print.
+  static char stdout_buffer[1 << 20];
+  if (!::isatty(STDOUT_FILENO)) std::setvbuf(stdout, stdout_buffer, _IOFBF, sizeof stdout_buffer);
   CLI::App app{"edgeflux: two-dimensional thermal bridge assessment of building-envelope junctions "
                "(steady-state conduction, ISO 10211 methods)"};
   app.require_subcommand(1);

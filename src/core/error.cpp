@@ -23,15 +23,32 @@ std::string shortened(const std::string& text, std::size_t limit) {
   return fmt::format("{} … [{} characters left out] … {}", text.substr(0, head), tail - head, text.substr(tail));
 }
 
+/// The user's values appear in messages as long runs without spaces: each is cut to `limit`
+/// characters (its middle left out), whatever part of the message quotes it.
+std::string shortened_words(const std::string& text, std::size_t limit) {
+  std::string out;
+  std::size_t start = 0;
+  while (start < text.size()) {
+    const std::size_t space = text.find_first_of(" \t\n", start);
+    const std::size_t end = space == std::string::npos ? text.size() : space;
+    out += shortened(text.substr(start, end - start), limit);
+    if (space == std::string::npos) break;
+    out += text[space];
+    start = space + 1;
+  }
+  return out;
+}
+
 }  // namespace
 
 std::string format_input_error(const SourceLocation& where, const std::string& object, const std::string& problem,
                                const std::string& fix) {
   std::string place = where.file.empty() ? std::string("input") : shortened(where.file, 300);
   if (where.line > 0) place += fmt::format(":{}", where.line);
-  // Each part quotes the user's text at most in part: a message stays a few lines long whatever the input.
-  std::string message = fmt::format("{}: {}: {}", place, shortened(object, 200), shortened(problem, 400));
-  if (!fix.empty()) message += fmt::format(". Fix: {}", shortened(fix, 400));
+  // Each part quotes the user's text at most in part: a value at most ~200 characters, a part at most 400.
+  std::string message = fmt::format("{}: {}: {}", place, shortened(shortened_words(object, 160), 200),
+                                    shortened(shortened_words(problem, 160), 400));
+  if (!fix.empty()) message += fmt::format(". Fix: {}", shortened(shortened_words(fix, 160), 400));
   return message;
 }
 

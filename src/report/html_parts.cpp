@@ -75,7 +75,9 @@ table.results tr.carried th, table.results tr.carried td { background: #e8f1f8; 
 table.results tr.carried td.num { font-size: 11pt; }
 table.results tr.criterion td.num { color: var(--met); }
 table.results tr.not-met td.num { color: var(--notmet); }
-table.compact { font-size: 7.8pt; }
+table.compact { font-size: 7.5pt; break-inside: auto; }
+table.compact td, table.compact th { padding: 0.45mm 1.2mm; }
+.sheet .notes { font-size: 7.8pt; font-style: normal; }
 table.compact tr.carried td { font-weight: bold; }
 td.stack { font-size: 7.5pt; color: var(--muted); padding-left: 5mm; }
 table.sign-off { margin-top: 3mm; font-size: 8.5pt; }
@@ -85,16 +87,16 @@ figure { margin: 2mm 0; break-inside: avoid; }
 figure svg { display: block; max-width: 100%; height: auto; margin: 0 auto; }
 .figure-row { display: grid; grid-template-columns: 1fr 1fr; gap: 4mm; align-items: start; break-inside: avoid; }
 .figure-row figure { margin: 1mm 0; min-width: 0; }
-figure.sheet-figure svg { max-height: 80mm; width: auto; }
+figure.sheet-figure svg { max-height: 72mm; width: auto; }
 figure.sheet-figure figcaption { font-size: 6.8pt; line-height: 1.3; }
 figcaption { font-size: 7.5pt; color: var(--muted); margin-top: 1mm; }
 figcaption b { color: var(--ink); }
 .small { font-size: 8pt; color: var(--muted); }
 .status { border: 0.3mm solid var(--rule); background: var(--soft); padding: 2mm 3mm; }
-.cautions { border: 0.4mm solid var(--warn); background: #fff8e6; padding: 1.5mm 3mm; margin: 2.5mm 0; break-inside: avoid; font-size: 7.8pt; }
+.cautions { border: 0.4mm solid var(--warn); background: #fff8e6; padding: 1.5mm 3mm; margin: 2.5mm 0; break-inside: avoid; font-size: 7.4pt; line-height: 1.3; }
 .cautions h3 { margin: 0; color: var(--warn); font-size: 8.5pt; }
 .cautions ul, .warnings ul { margin: 0.5mm 0 0 4mm; padding: 0; }
-.warnings { border: 0.4mm solid var(--notmet); background: #fdf1f0; padding: 1.5mm 3mm; margin: 2.5mm 0; break-inside: avoid; font-size: 7.8pt; }
+.warnings { border: 0.4mm solid var(--notmet); background: #fdf1f0; padding: 1.5mm 3mm; margin: 2.5mm 0; break-inside: avoid; font-size: 7.4pt; line-height: 1.3; }
 .warnings h3 { margin: 0; color: var(--notmet); font-size: 8.5pt; }
 code, pre { font-family: "DejaVu Sans Mono", "Liberation Mono", monospace; font-size: 7.5pt; }
 pre { white-space: pre-wrap; word-break: break-all; background: var(--soft); border: 0.3mm solid var(--rule); padding: 2mm; }

@@ -34,7 +34,7 @@ extern const char* const report_css;
 /// value carried forward, criteria, detail and temperature drawings, materials, boundary conditions,
 /// ψ derivation, cautions and sign-off.
 std::string junction_sheet(const CrossSection& section, const Calculation& calc, const std::vector<Drawing>& drawings,
-                           const ReportProvenance& provenance);
+                           const ReportProvenance& provenance, bool with_appendices);
 /// Appendix A: heat flows, energy balance, flanking elements with their layer stacks, coupling
 /// coefficients, the moisture figures, probes.
 std::string results_appendix(const CrossSection& section, const Calculation& calc);

@@ -6,6 +6,7 @@
 #include <cstdlib>
 #include <ctime>
 
+#include "core/utf8.h"
 #include "report/html_parts.h"
 
 namespace edgeflux {
@@ -26,7 +27,8 @@ std::string report_timestamp() {
   return text;
 }
 
-std::string html::css_string(const std::string& text) {
+std::string html::css_string(const std::string& raw) {
+  const std::string text = valid_utf8(raw);  // a file name may hold bytes that are not UTF-8
   std::string out = "\"";
   for (char c : text) {
     if (c == '"' || c == '\\') out += '\\', out += c;
@@ -66,7 +68,7 @@ std::string html_report(const CrossSection& section, const Calculation& calc, co
   add(fmt::format("<meta name=\"generator\" content=\"edgeflux {}\">\n", EDGEFLUX_VERSION));
   add(fmt::format("<title>Junction sheet — {}</title>\n<style>{}{}</style>\n</head>\n<body>\n", escape(title), report_css,
                   page_rules(section, title, provenance)));
-  add(junction_sheet(section, calc, drawings, provenance));
+  add(junction_sheet(section, calc, drawings, provenance, with_appendices));
   if (with_appendices) {
     add(results_appendix(section, calc));
     add(mesh_appendix(section, calc, drawings));

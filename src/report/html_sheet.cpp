@@ -14,12 +14,14 @@ namespace edgeflux::html {
 
 namespace {
 
+/// Characters of the detail's notes the sheet shows when the appendices carry the rest.
+constexpr std::size_t max_sheet_notes = 450;
+
 std::string title_block(const CrossSection& section, const ReportProvenance& provenance) {
   const JunctionRecord& r = section.record;
   const std::string title = section.title.empty() ? section.file : section.title;
   std::string h = "<header class=\"title-block\">\n<div class=\"kicker\">Junction sheet · thermal bridge, two-dimensional, steady state (ISO 10211)</div>\n";
   h += fmt::format("<h1>{}{}</h1>\n", r.reference.empty() ? "" : "<span class=\"ref\">" + escape(r.reference) + "</span> ", escape(title));
-  if (!section.notes.empty()) h += fmt::format("<p class=\"notes\">{}</p>\n", escape(section.notes));
   h += "<dl class=\"record\">";
   auto item = [&](const char* label, const std::string& value) {
     h += fmt::format("<div><dt>{}</dt><dd>{}</dd></div>", label, value.empty() ? "<span class=\"blank\">—</span>" : escape(value));
@@ -100,9 +102,17 @@ std::string results_table(const CrossSection& section, const Calculation& calc) 
     else if (j.plain_element_governs)
       h += row("The junction's own lowest θ<sub>si</sub>", "—", "the interior surfaces warm steadily towards the junction: it has no colder point of its own");
   }
-  if (j.temperature_factor)
+  if (j.moisture.size() > 1) {
+    // Opaque surfaces and glazing/frames are judged apart, each at its own coldest point.
+    for (const MoistureResult& m : j.moisture)
+      h += row(fmt::format("Temperature factor f<sub>Rsi</sub>, {}", m.kind == SurfaceKind::glazing ? "glazing and frame" : "opaque surfaces"),
+               fixed(m.temperature_factor, digits::temperature_factor),
+               fmt::format("at {} ({} °C), interior Rsi {} m²K/W (ISO 13788)", user_point(section, m.minimum.at),
+                           fixed(m.minimum.temperature, digits::surface_temperature), m.kind == SurfaceKind::glazing ? "0.13" : "0.25"));
+  } else if (j.temperature_factor) {
     h += row("Temperature factor f<sub>Rsi</sub>", fixed(*j.temperature_factor, digits::temperature_factor),
              "(θ<sub>si,min</sub> − θ<sub>e</sub>) / (θ<sub>i</sub> − θ<sub>e</sub>), interior Rsi 0.25 m²K/W (ISO 13788)");
+  }
   for (const MoistureResult& m : j.moisture) {
     const char* surfaces = m.kind == SurfaceKind::glazing ? "glazing and frame" : "opaque";
     for (const CriterionCheck& c : m.assessment.criteria)
@@ -124,19 +134,22 @@ std::string results_table(const CrossSection& section, const Calculation& calc) 
 
 std::string materials_table(const CrossSection& section) {
   std::string h = "<table class=\"compact\"><caption>Materials</caption><tr><th>Material</th><th class=\"num\">λ [W/(m·K)]</th>"
-                  "<th class=\"num\">ρ [kg/m³]</th><th>Kind of value</th><th>Source of λ</th></tr>\n";
+                  "<th class=\"num\">ρ [kg/m³]</th><th>Source of λ</th></tr>\n";
   for (const Material& m : section.materials) {
-    const std::string basis = m.basis == "normative" ? "design value (tabulated)"
-                              : m.basis == "typical" ? "<b>typical declared value</b>: replace by the product's"
-                                                     : "as given in the detail";
-    h += fmt::format("<tr><td>{}</td><td class=\"num\">{}</td><td class=\"num\">{}</td><td>{}</td><td>{}</td></tr>\n", escape(m.id),
-                     conductivity_text(m.conductivity), m.density ? fmt::format("{:.0f}", *m.density) : std::string("—"), basis, escape(m.source));
+    // A typical declared value is a placeholder for the product's own: say so where it is read.
+    const std::string kind = m.basis == "typical" ? "<b>typical declared value, to be replaced by the product's:</b> "
+                             : m.basis == "normative" ? "tabulated design value: "
+                                                      : "";
+    h += fmt::format("<tr><td>{}</td><td class=\"num\">{}</td><td class=\"num\">{}</td><td>{}{}</td></tr>\n", escape(m.id),
+                     conductivity_text(m.conductivity), m.density ? fmt::format("{:.0f}", *m.density) : std::string("—"), kind, escape(m.source));
   }
   return h + "</table>\n";
 }
 
 std::string boundary_table(const CrossSection& section) {
-  std::string h = "<table class=\"compact\"><caption>Boundary conditions</caption><tr><th>Surface</th><th>Environment</th>"
+  std::string h = "<table class=\"compact\"><caption>Boundary conditions (Rs heat loss: ISO 6946 or as given, for Φ, L<sub>2D</sub> and ψ; "
+                  "Rs surface temperature: ISO 13788, for θ<sub>si</sub> and f<sub>Rsi</sub>; edges without a surface are adiabatic)</caption>"
+                  "<tr><th>Surface</th><th>Environment</th>"
                   "<th class=\"num\">θ [°C]</th><th class=\"num\">Rs heat loss [m²K/W]</th><th class=\"num\">Rs surface temp. [m²K/W]</th></tr>\n";
   for (const Surface& s : section.surfaces) {
     const Environment& e = section.environments[s.environment];
@@ -144,9 +157,7 @@ std::string boundary_table(const CrossSection& section) {
                      s.kind == SurfaceKind::glazing ? " (glazing/frame)" : "", escape(e.id), side_name(e.side), fixed(e.temperature, 1),
                      s.is_fixed_temperature() ? std::string("0 (fixed θ)") : fixed(s.resistance, 2), fixed(temperature_run_resistance(section, s), 2));
   }
-  h += "</table>\n<p class=\"small\">Rs heat loss: ISO 6946 (or as given), for Φ, L<sub>2D</sub> and ψ. Rs surface temperature: ISO 13788 "
-       "(0.25 m²K/W interior opaque, 0.13 glazing), for θ<sub>si</sub> and f<sub>Rsi</sub>. Edges without a surface are adiabatic "
-       "(cut-off planes, symmetry).</p>\n";
+  h += "</table>\n";
   return h;
 }
 
@@ -199,7 +210,7 @@ std::string figure(const Drawing& d, int number, const char* css) {
 }  // namespace
 
 std::string junction_sheet(const CrossSection& section, const Calculation& calc, const std::vector<Drawing>& drawings,
-                           const ReportProvenance& provenance) {
+                           const ReportProvenance& provenance, bool with_appendices) {
   auto find = [&](const char* id) -> const Drawing* {
     for (const Drawing& d : drawings)
       if (d.id == id) return &d;
@@ -212,7 +223,21 @@ std::string junction_sheet(const CrossSection& section, const Calculation& calc,
   h += "<div class=\"figure-row\">\n";
   if (const Drawing* d = find("detail")) h += figure(*d, 1, "sheet-figure");
   if (const Drawing* d = find("temperature")) h += figure(*d, 2, "sheet-figure");
-  h += "</div>\n</section>\n<section class=\"sheet page-break\" id=\"sheet-2\">\n";
+  // The rest flows on: a page break forced here would strand a half-empty page when the figures
+  // move over.
+  h += "</div>\n";
+  if (!section.notes.empty()) {
+    // A long description would push the sheet onto a third page: its first sentences here, all of
+    // it in Appendix A.
+    std::string notes = section.notes;
+    bool shortened = false;
+    if (with_appendices && notes.size() > max_sheet_notes) {
+      const std::size_t stop = notes.rfind(". ", max_sheet_notes);
+      notes = notes.substr(0, stop == std::string::npos || stop < 100 ? max_sheet_notes : stop + 1);
+      shortened = true;
+    }
+    h += fmt::format("<p class=\"notes\"><b>Description.</b> {}{}</p>\n", escape(notes), shortened ? " <i>(continued in Appendix A)</i>" : "");
+  }
   h += materials_table(section);
   h += boundary_table(section);
   h += psi_derivation(section, calc);

@@ -67,7 +67,8 @@ std::string results_appendix(const CrossSection& section, const Calculation& cal
   const JunctionResults& j = calc.junction;
   std::string h;
   auto add = [&](const std::string& s) { h += s; };
-  add("<section class=\"appendix page-break\" id=\"appendix-results\">\n<h2>Appendix A — Heat flows, flanking elements and moisture</h2>\n");
+  add("<section class=\"appendix page-break\" id=\"appendix-results\">\n<h2>Appendix A — Description, heat flows, flanking elements and moisture</h2>\n");
+  if (!section.notes.empty()) add(fmt::format("<p class=\"notes\"><b>Description of the detail.</b> {}</p>\n", escape(section.notes)));
   add("<table><caption>Environments</caption><tr><th>Environment</th><th>Side</th><th class=\"num\">θ [°C]</th><th class=\"num\">Φ into the section [W/m]</th></tr>\n");
   for (const EnvironmentFlow& flow : field.environments) {
     const Environment& e = section.environments[flow.environment];

@@ -160,6 +160,10 @@ TEST_CASE("a huge value in the input is quoted shortened: the message stays one 
   const Run reference = run_program("solve -q '" + input.string() + "'");
   CHECK(reference.exit_code == 2);
   CHECK(reference.output.size() < 1200);
+  // Each quotation of the value keeps at most ~200 of its characters (common practice: a value
+  // recognisable by its start and end, not a screenful).
+  CHECK(reference.output.find(std::string(201, 'b')) == std::string::npos);
+  CHECK(run.output.find(std::string(201, '7')) == std::string::npos);
   fs::remove(input);
 }
 

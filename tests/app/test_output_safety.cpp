@@ -125,6 +125,14 @@ TEST_CASE("results that cannot be written to standard output end with exit 2 (a 
   CHECK(run_program("--help > /dev/full").exit_code == 2);
 }
 
+TEST_CASE("a bad output path is refused before the solve, not after it") {
+  Folder f;
+  const auto run = run_program("solve " + f.q(f.detail) + " --json " + f.q(f.path / "missing" / "r.json"));
+  CHECK(run.exit_code == 2);
+  CHECK(run.output.find("does not exist") != std::string::npos);
+  CHECK(run.output.find("level 1") == std::string::npos);  // no refinement level was started
+}
+
 TEST_CASE("an output that is where the summary goes, or in a 'folder' that is a file, is refused with what it is") {
   Folder f;
   const fs::path summary = f.path / "summary.txt";

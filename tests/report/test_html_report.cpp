@@ -144,6 +144,7 @@ TEST_CASE("three environments: the sheet gives ψ per pair of environments") {
 
 TEST_CASE("record text cannot break out of the running header's CSS string or the style element") {
   CHECK(html::css_string("J\"1\\ </style><script>") == "\"J\\\"1\\\\ \\3C /style>\\3C script>\"");
+  CHECK(html::css_string("w\xff.xml") == "\"w\u00ff.xml\"");  // a file name that is not UTF-8 is read as Latin-1
   Built b = build("examples/intermediate-floor.xml");
   b.section.record.reference = "</style><b>x";
   const std::string html = html_report(b.section, b.calc, {}, {b.input, "now"});
