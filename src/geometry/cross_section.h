@@ -6,6 +6,7 @@
 #include <optional>
 #include <string>
 #include <string_view>
+#include <utility>
 #include <vector>
 
 #include "core/error.h"
@@ -141,9 +142,16 @@ struct JunctionRecord {
   std::string revision;    ///< revision of this assessment (or of the drawing)
   std::string assessor, checker;
   std::string date;        ///< date of the assessment as the user writes it
+  /// Label and value of every field but the reference, in title-block order.
+  std::vector<std::pair<const char*, const std::string*>> fields() const {
+    return {{"Project", &project}, {"Client", &client},   {"Site", &site},         {"Drawing", &drawing},
+            {"Revision", &revision}, {"Date", &date}, {"Assessor", &assessor}, {"Checker", &checker}};
+  }
   bool empty() const {
-    return reference.empty() && project.empty() && client.empty() && site.empty() && drawing.empty() && revision.empty() &&
-           assessor.empty() && checker.empty() && date.empty();
+    if (!reference.empty()) return false;
+    for (const auto& [label, value] : fields())
+      if (!value->empty()) return false;
+    return true;
   }
 };
 

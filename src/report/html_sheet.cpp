@@ -26,14 +26,7 @@ std::string title_block(const CrossSection& section, const ReportProvenance& pro
   auto item = [&](const char* label, const std::string& value) {
     h += fmt::format("<div><dt>{}</dt><dd>{}</dd></div>", label, value.empty() ? "<span class=\"blank\">—</span>" : escape(value));
   };
-  item("Project", r.project);
-  item("Client", r.client);
-  item("Site", r.site);
-  item("Drawing", r.drawing);
-  item("Revision", r.revision);
-  item("Date", r.date);
-  item("Assessor", r.assessor);
-  item("Checker", r.checker);
+  for (const auto& [label, value] : r.fields()) item(label, *value);
   const std::string file = section.file.substr(section.file.find_last_of('/') == std::string::npos ? 0 : section.file.find_last_of('/') + 1);
   h += fmt::format("<div class=\"wide\"><dt>Input</dt><dd>{} (SHA-256 <code>{}</code>) · calculated {} with edgeflux {}</dd></div>", escape(file),
                    sha256_hex(provenance.input_text).substr(0, 16), escape(provenance.generated), EDGEFLUX_VERSION);

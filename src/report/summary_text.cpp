@@ -4,6 +4,7 @@
 #include <fmt/format.h>
 
 #include <algorithm>
+#include <cctype>
 
 #include "report/number_format.h"
 
@@ -24,14 +25,12 @@ std::string summary_text(const CrossSection& section, const Calculation& calc) {
   {
     const JunctionRecord& r = section.record;
     std::string record;
-    auto add = [&](const char* label, const std::string& v) { if (!v.empty()) record += fmt::format("{}{}: {}", record.empty() ? "" : " · ", label, v); };
+    auto add = [&](std::string label, const std::string& v) {
+      label[0] = static_cast<char>(std::tolower(static_cast<unsigned char>(label[0])));
+      if (!v.empty()) record += fmt::format("{}{}: {}", record.empty() ? "" : " · ", label, v);
+    };
     add("junction", r.reference);
-    add("project", r.project);
-    add("drawing", r.drawing);
-    add("revision", r.revision);
-    add("date", r.date);
-    add("assessor", r.assessor);
-    add("checker", r.checker);
+    for (const auto& [label, value] : r.fields()) add(label, *value);
     if (!record.empty()) line(record);
   }
   line("");
