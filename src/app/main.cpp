@@ -32,7 +32,10 @@
 #include "report/import_files.h"
 #include "report/import_picture.h"
 #include "report/json_results.h"
+#include "project/read_project_file.h"
+#include "project/run_project.h"
 #include "report/number_format.h"
+#include "report/schedule_files.h"
 #include "report/variants_page.h"
 #include "report/html_report.h"
 #include "report/output_files.h"
@@ -341,6 +344,19 @@ int main(int argc, char** argv) {
   solve_cmd->add_flag("--fixed-mesh", solve.fixed_mesh,
                       "Solve once on the mesh of --density instead of refining to the accuracy targets");
 
+  struct ProjectArgs {
+    std::string file, csv, json;
+    int jobs = 0;
+    bool quiet = false;
+  } project;
+  CLI::App* project_cmd = app.add_subcommand(
+      "project", "Solve every junction of a project file in parallel: the schedule of ψ, lengths and ψ·l, and H_TB");
+  project_cmd->add_option("project", project.file, "Project file (XML, see docs/project-format.md)")->required();
+  project_cmd->add_option("--csv", project.csv, "Write the schedule as CSV to this file");
+  project_cmd->add_option("--json", project.json, "Write the schedule as JSON to this file");
+  project_cmd->add_option("--jobs", project.jobs, "Parallel calculations (default: all cores)")->check(CLI::Range(0, 256));
+  project_cmd->add_flag("-q,--quiet", project.quiet, "Do not print progress");
+
   std::string material_search;
   CLI::App* materials_cmd = app.add_subcommand(
       "materials", "List the built-in material library (λ, density, source); give a word to search ids, categories and sources");
@@ -435,6 +451,28 @@ int main(int argc, char** argv) {
       const auto variants = run_comparison(args.inputs, options, args.jobs, variant_progress(args.quiet));
       return with_output_flushed(finish_variants("Comparison of " + std::to_string(args.inputs.size()) + " details", variants,
                                                  {}, args.csv, args.page, args.inputs));
+    }
+    if (*project_cmd) {
+      const Project p = read_project_file(project.file);
+      std::vector<OutputFile> planned;
+      for (const std::string* path : {&project.csv, &project.json})
+        if (!path->empty()) planned.push_back({*path, ""});
+      std::vector<std::string> inputs{project.file};
+      for (const ProjectJunction& j : p.junctions) inputs.push_back(j.detail_file);
+      check_output_paths(planned, inputs);
+      auto progress = project.quiet ? std::function<void(int, int)>() : [](int done, int total) {
+        fmt::print(stderr, "\redgeflux: {}/{} junctions solved{}", done, total, done == total ? "\n" : "");
+      };
+      const Schedule schedule = run_project(p, {}, project.jobs, progress);
+      std::vector<OutputFile> files;
+      if (!project.csv.empty()) files.push_back({project.csv, schedule_csv(schedule)});
+      if (!project.json.empty()) files.push_back({project.json, schedule_json(schedule)});
+      check_output_paths(files, inputs);
+      fmt::print("{}", schedule_text(schedule));
+      require_summary_written();
+      write_output_files(files);
+      for (const OutputFile& f : files) fmt::print("Written: {}\n", f.path);
+      return with_output_flushed(schedule.failed == 0 ? 0 : 2);
     }
     if (*materials_cmd) {
       const auto found = search_material_library(material_search);

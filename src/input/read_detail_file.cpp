@@ -103,7 +103,7 @@ CrossSection DetailReader::read(const std::string& raw) {
     const auto it = std::find_if(section_.parameters.begin(), section_.parameters.end(),
                                  [&](const Parameter& p) { return p.name == name; });
     if (it == section_.parameters.end())
-      throw_input_error({file_, 0}, fmt::format("parameter '{}'", name), "is set on the command line but not defined in the file",
+      throw_input_error({file_, 0}, fmt::format("parameter '{}'", name), "is given a value (on the command line or in a project) but not defined in the file",
                         fmt::format("use one of: {}", parameter_names()));
   }
 

@@ -130,6 +130,14 @@ std::vector<VariantSummary> run_sweep(const std::string& file, const std::vector
   return results;
 }
 
+std::vector<VariantSummary> run_variants(const std::vector<VariantJob>& batch, const CalculationOptions& options, int jobs,
+                                         const std::function<void(int, int)>& progress) {
+  std::vector<VariantSummary> results(batch.size());
+  parallel_for(static_cast<int>(batch.size()), jobs, [&](int i) { results[i] = run_one(batch[i].label, batch[i].file, batch[i].overrides, options); },
+               progress);
+  return results;
+}
+
 std::vector<VariantSummary> run_comparison(const std::vector<std::string>& files, const CalculationOptions& options, int jobs,
                                            const std::function<void(int, int)>& progress) {
   std::vector<VariantSummary> results(files.size());

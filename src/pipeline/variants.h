@@ -30,6 +30,17 @@ std::vector<VariantSummary> run_sweep(const std::string& file, const std::vector
                                       const CalculationOptions& options, int jobs,
                                       const std::function<void(int done, int total)>& progress = {});
 
+/// One calculation of a batch: a detail file with parameter values, and its label.
+struct VariantJob {
+  std::string label;
+  std::string file;
+  ParameterOverrides overrides;
+};
+
+/// Any batch of calculations in parallel, results in job order (identical for any `jobs`).
+std::vector<VariantSummary> run_variants(const std::vector<VariantJob>& batch, const CalculationOptions& options, int jobs,
+                                         const std::function<void(int done, int total)>& progress = {});
+
 /// Several detail files side by side, in parallel.
 std::vector<VariantSummary> run_comparison(const std::vector<std::string>& files, const CalculationOptions& options, int jobs,
                                            const std::function<void(int done, int total)>& progress = {});

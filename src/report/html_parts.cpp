@@ -68,6 +68,7 @@ th { background: var(--soft); font-weight: bold; border-bottom: 0.4mm solid #9aa
 td.num, th.num { text-align: right; font-variant-numeric: tabular-nums; }
 td.num { white-space: nowrap; }
 caption { caption-side: top; text-align: left; font-weight: bold; padding: 0 0 0.8mm; font-size: 9pt; }
+caption .small { font-weight: normal; }
 table.results th { width: 30%; background: none; border-bottom: 0.25mm solid var(--rule); font-weight: normal; }
 table.results td:last-child { font-size: 7.6pt; line-height: 1.3; }
 table.results td.num { width: 17%; font-weight: bold; font-size: 9.5pt; }

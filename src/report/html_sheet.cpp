@@ -140,8 +140,8 @@ std::string materials_table(const CrossSection& section) {
 }
 
 std::string boundary_table(const CrossSection& section) {
-  std::string h = "<table class=\"compact\"><caption>Boundary conditions (Rs heat loss: ISO 6946 or as given, for Φ, L<sub>2D</sub> and ψ; "
-                  "Rs surface temperature: ISO 13788, for θ<sub>si</sub> and f<sub>Rsi</sub>; edges without a surface are adiabatic)</caption>"
+  std::string h = "<table class=\"compact\"><caption>Boundary conditions <span class=\"small\">(Rs heat loss: ISO 6946 or as given, for Φ, L<sub>2D</sub> and ψ; "
+                  "Rs surface temperature: ISO 13788, for θ<sub>si</sub> and f<sub>Rsi</sub>; edges without a surface are adiabatic)</span></caption>"
                   "<tr><th>Surface</th><th>Environment</th>"
                   "<th class=\"num\">θ [°C]</th><th class=\"num\">Rs heat loss [m²K/W]</th><th class=\"num\">Rs surface temp. [m²K/W]</th></tr>\n";
   for (const Surface& s : section.surfaces) {

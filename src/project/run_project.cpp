@@ -1,0 +1,73 @@
+#include "project/run_project.h"
+
+#include <fmt/format.h>
+
+#include <cmath>
+
+#include "pipeline/variants.h"
+
+namespace edgeflux {
+
+namespace {
+
+const char* system_word(DimensionSystem s) {
+  return s == DimensionSystem::internal ? "internal" : s == DimensionSystem::overall_internal ? "overall-internal" : "external";
+}
+
+}  // namespace
+
+void sum_schedule(Schedule& schedule) {
+  schedule.heat_transfer_coefficient = 0;
+  schedule.heat_transfer_coefficient_error = 0;
+  schedule.failed = 0;
+  for (ScheduleRow& row : schedule.rows) {
+    row.length = 0;
+    for (const TakenLength& l : row.junction.lengths) row.length += l.metres;
+    if (!row.psi) {
+      ++schedule.failed;
+      row.psi_length.reset();
+      continue;
+    }
+    row.psi_length = *row.psi * row.length;
+    schedule.heat_transfer_coefficient += *row.psi_length;
+    schedule.heat_transfer_coefficient_error += std::abs(row.psi_error.value_or(0.0)) * row.length;
+    row.exceeds_assumed = row.junction.assumed_psi && *row.psi > *row.junction.assumed_psi;
+  }
+  schedule.u_surcharge.reset();
+  if (schedule.project.envelope_area) schedule.u_surcharge = schedule.heat_transfer_coefficient / *schedule.project.envelope_area;
+}
+
+Schedule run_project(const Project& project, const CalculationOptions& options, int jobs, const std::function<void(int, int)>& progress) {
+  std::vector<VariantJob> batch;
+  for (const ProjectJunction& j : project.junctions) batch.push_back({j.reference, j.detail_file, j.overrides});
+  const std::vector<VariantSummary> results = run_variants(batch, options, jobs, progress);
+  Schedule schedule;
+  schedule.project = project;
+  for (std::size_t k = 0; k < project.junctions.size(); ++k) {
+    ScheduleRow row;
+    row.junction = project.junctions[k];
+    row.result = results[k];
+    if (!row.result.error.empty()) {
+      row.error = row.result.error;
+    } else {
+      std::string systems;
+      for (std::size_t i = 0; i < row.result.psi.size(); ++i) {
+        systems += (systems.empty() ? "" : ", ") + std::string(system_word(row.result.psi[i].system));
+        if (row.result.psi[i].system == project.system) {
+          row.psi = row.result.psi[i].psi;
+          if (i < row.result.psi_error.size()) row.psi_error = row.result.psi_error[i];
+        }
+      }
+      if (!row.psi)
+        row.error = systems.empty()
+                        ? "the detail gives no ψ (it needs flanking elements with lengths, and exactly two environments)"
+                        : fmt::format("the detail gives ψ in {} dimensions only, not in the project's {}: add length-{} to its flanking elements",
+                                      systems, system_word(project.system), system_word(project.system));
+    }
+    schedule.rows.push_back(std::move(row));
+  }
+  sum_schedule(schedule);
+  return schedule;
+}
+
+}  // namespace edgeflux

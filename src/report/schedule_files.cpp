@@ -1,0 +1,128 @@
+#include "report/schedule_files.h"
+
+#include <fmt/format.h>
+#include <nlohmann/json.hpp>
+
+#include <algorithm>
+
+#include "physics/moisture_verdict.h"
+#include "report/number_format.h"
+#include "report/text_format.h"
+
+namespace edgeflux {
+
+namespace {
+
+const char* system_key(DimensionSystem s) {
+  return s == DimensionSystem::internal ? "internal" : s == DimensionSystem::overall_internal ? "overall_internal" : "external";
+}
+
+/// fRsi and the criteria outcome of every kind of surface, e.g. "0.945 criterion met".
+std::string verdict_text(const VariantSummary& v) {
+  std::string text;
+  for (const KindVerdict& k : v.verdicts)
+    text += fmt::format("{}{}{} {}", text.empty() ? "" : "; ", k.kind == SurfaceKind::glazing ? "glazing " : "",
+                        fixed(k.temperature_factor, digits::temperature_factor), criteria_outcome(k.criteria));
+  return text.empty() ? "—" : text;
+}
+
+}  // namespace
+
+std::string schedule_text(const Schedule& s) {
+  const Project& p = s.project;
+  std::string out = fmt::format("Thermal bridge schedule — {}\n", p.record.project.empty() ? p.file : p.record.project);
+  std::string record;
+  for (const auto& [label, value] : p.record.fields())
+    if (!value->empty()) record += fmt::format("{}{}: {}", record.empty() ? "" : " · ", label, *value);
+  if (!record.empty()) out += record + "\n";
+  out += fmt::format("ψ in {} dimensions (the energy method's); lengths in m\n\n", dimension_system_name(p.system));
+  std::size_t ref_width = 4, description_width = 11;
+  for (const ScheduleRow& r : s.rows) {
+    ref_width = std::max(ref_width, r.junction.reference.size());
+    description_width = std::min<std::size_t>(40, std::max(description_width, r.junction.description.size()));
+  }
+  out += fmt::format("  {:<{}}  {:<{}} {:>8} {:>9} {:>9}  {:>8}  {}\n", "ref.", ref_width, "description", description_width, "ψ",
+                     "length", "ψ·l [W/K]", "assumed", "fRsi and criteria");
+  for (const ScheduleRow& r : s.rows) {
+    std::string description = r.junction.description.substr(0, description_width);
+    if (r.error.empty()) {
+      out += fmt::format("  {:<{}}  {:<{}} {:>8} {:>9} {:>9}  {:>8}  {}{}\n", r.junction.reference, ref_width, description, description_width,
+                         fixed(*r.psi, digits::psi), fixed(r.length, 2), fixed(*r.psi_length, 3),
+                         r.junction.assumed_psi ? fixed(*r.junction.assumed_psi, digits::psi) : "—", verdict_text(r.result),
+                         r.exceeds_assumed ? "   ! ψ above the assumed value" : "");
+    } else {
+      out += fmt::format("  {:<{}}  {:<{}} NOT CALCULATED: {}\n", r.junction.reference, ref_width, description, description_width, r.error);
+    }
+  }
+  out += fmt::format("\n  H_TB = Σ ψ·l = {} W/K (estimated discretisation error ± {} W/K)", fixed(s.heat_transfer_coefficient, 3),
+                     error_text(s.heat_transfer_coefficient_error, 3));
+  if (s.u_surcharge)
+    out += fmt::format("\n  ΔU_TB = H_TB / A = {} / {} = {} W/(m²K)", fixed(s.heat_transfer_coefficient, 3), fixed(*s.project.envelope_area, 1),
+                       fixed(*s.u_surcharge, 4));
+  out += "\n";
+  const auto exceeded = std::count_if(s.rows.begin(), s.rows.end(), [](const ScheduleRow& r) { return r.exceeds_assumed; });
+  if (exceeded > 0) out += fmt::format("  ! {} junction(s) exceed the ψ the energy calculation assumed\n", exceeded);
+  if (s.failed > 0)
+    out += fmt::format("  ! {} junction(s) not calculated: H_TB leaves them out and is INCOMPLETE\n", s.failed);
+  out += "\nResults depend on the inputs and modelling choices; local building codes and a qualified professional decide compliance.\n";
+  return out;
+}
+
+std::string schedule_csv(const Schedule& s) {
+  std::string out = fmt::format("reference,description,detail,psi_{}_w_per_mk,psi_error_w_per_mk,length_m,psi_l_w_per_k,assumed_psi_w_per_mk,"
+                                "assumed_source,exceeds_assumed,criteria,lengths_taken_from,error\n",
+                                system_key(s.project.system));
+  auto number = [](const std::optional<double>& v) { return v ? fmt::format("{:.9g}", *v) : std::string(); };
+  for (const ScheduleRow& r : s.rows) {
+    std::string taken;
+    for (const TakenLength& l : r.junction.lengths) taken += fmt::format("{}{:g} m {}", taken.empty() ? "" : "; ", l.metres, l.where);
+    out += fmt::format("{},{},{},{},{},{:.9g},{},{},{},{},{},{},{}\n", csv_field(r.junction.reference), csv_field(r.junction.description),
+                       csv_field(r.junction.detail_file), number(r.psi), number(r.psi_error), r.length, number(r.psi_length),
+                       number(r.junction.assumed_psi), csv_field(r.junction.assumed_source), r.exceeds_assumed ? "yes" : "no",
+                       csv_field(r.error.empty() ? verdict_text(r.result) : ""), csv_field(taken), csv_field(r.error));
+  }
+  out += fmt::format("H_TB,,,,,,{:.9g},,,,,,{}\n", s.heat_transfer_coefficient, s.failed > 0 ? "incomplete: junctions not calculated" : "");
+  if (s.u_surcharge) out += fmt::format("delta_U_TB,,,,,,{:.9g},,,,,,\n", *s.u_surcharge);
+  return out;
+}
+
+std::string schedule_json(const Schedule& s) {
+  nlohmann::ordered_json j;
+  j["format"] = "edgeflux-schedule";
+  j["format_version"] = 1;
+  j["program_version"] = EDGEFLUX_VERSION;
+  j["project_file"] = s.project.file;
+  const JunctionRecord& r = s.project.record;
+  j["record"] = {{"project", r.project}, {"client", r.client}, {"site", r.site}, {"drawing", r.drawing}, {"revision", r.revision},
+                 {"assessor", r.assessor}, {"checker", r.checker}, {"date", r.date}};
+  j["dimension_system"] = system_key(s.project.system);
+  j["envelope_area_m2"] = s.project.envelope_area ? nlohmann::ordered_json(*s.project.envelope_area) : nullptr;
+  auto& rows = j["junctions"] = nlohmann::ordered_json::array();
+  for (const ScheduleRow& row : s.rows) {
+    nlohmann::ordered_json lengths = nlohmann::ordered_json::array();
+    for (const TakenLength& l : row.junction.lengths) lengths.push_back({{"metres", l.metres}, {"where", l.where}});
+    nlohmann::ordered_json criteria = nlohmann::ordered_json::array();
+    for (const KindVerdict& k : row.result.verdicts)
+      for (const CriterionCheck& c : k.criteria)
+        criteria.push_back({{"surfaces", k.kind == SurfaceKind::glazing ? "glazing" : "opaque"}, {"statement", criterion_statement(c, k.temperature_factor)},
+                            {"met", c.met}});
+    rows.push_back({{"reference", row.junction.reference}, {"description", row.junction.description}, {"detail_file", row.junction.detail_file},
+                    {"parameters", row.junction.overrides}, {"lengths", lengths}, {"length_m", row.length},
+                    {"psi_w_per_mk", row.psi ? nlohmann::ordered_json(*row.psi) : nullptr},
+                    {"psi_error_w_per_mk", row.psi_error ? nlohmann::ordered_json(*row.psi_error) : nullptr},
+                    {"psi_l_w_per_k", row.psi_length ? nlohmann::ordered_json(*row.psi_length) : nullptr},
+                    {"temperature_factor_frsi", row.result.temperature_factor ? nlohmann::ordered_json(*row.result.temperature_factor) : nullptr},
+                    {"criteria", criteria},
+                    {"assumed_psi_w_per_mk", row.junction.assumed_psi ? nlohmann::ordered_json(*row.junction.assumed_psi) : nullptr},
+                    {"assumed_source", row.junction.assumed_source}, {"exceeds_assumed", row.exceeds_assumed},
+                    {"input_sha256", row.result.input_sha256}, {"error", row.error.empty() ? nlohmann::ordered_json() : nlohmann::ordered_json(row.error)}});
+  }
+  j["heat_transfer_coefficient_h_tb_w_per_k"] = s.heat_transfer_coefficient;
+  j["heat_transfer_coefficient_error_w_per_k"] = s.heat_transfer_coefficient_error;
+  j["u_surcharge_w_per_m2k"] = s.u_surcharge ? nlohmann::ordered_json(*s.u_surcharge) : nullptr;
+  j["junctions_not_calculated"] = s.failed;
+  j["cautions"] = standard_cautions();
+  return j.dump(2, ' ', false, nlohmann::ordered_json::error_handler_t::replace) + "\n";
+}
+
+}  // namespace edgeflux
