@@ -345,9 +345,9 @@ int main(int argc, char** argv) {
                       "Solve once on the mesh of --density instead of refining to the accuracy targets");
 
   struct ProjectArgs {
-    std::string file, csv, json;
+    std::string file, csv, json, cache;
     int jobs = 0;
-    bool quiet = false;
+    bool quiet = false, no_cache = false;
   } project;
   CLI::App* project_cmd = app.add_subcommand(
       "project", "Solve every junction of a project file in parallel: the schedule of ψ, lengths and ψ·l, and H_TB");
@@ -356,6 +356,9 @@ int main(int argc, char** argv) {
   project_cmd->add_option("--json", project.json, "Write the schedule as JSON to this file");
   project_cmd->add_option("--jobs", project.jobs, "Parallel calculations (default: all cores)")->check(CLI::Range(0, 256));
   project_cmd->add_flag("-q,--quiet", project.quiet, "Do not print progress");
+  project_cmd->add_option("--cache", project.cache,
+                          "Folder of results kept between runs (default: .edgeflux-cache beside the project file); unchanged junctions are not solved again");
+  project_cmd->add_flag("--no-cache", project.no_cache, "Solve every junction, and keep no results");
 
   std::string material_search;
   CLI::App* materials_cmd = app.add_subcommand(
@@ -463,7 +466,10 @@ int main(int argc, char** argv) {
       auto progress = project.quiet ? std::function<void(int, int)>() : [](int done, int total) {
         fmt::print(stderr, "\redgeflux: {}/{} junctions solved{}", done, total, done == total ? "\n" : "");
       };
-      const Schedule schedule = run_project(p, {}, project.jobs, progress);
+      const std::string cache = project.no_cache ? std::string()
+                                : !project.cache.empty() ? project.cache
+                                                         : (std::filesystem::path(project.file).parent_path() / ".edgeflux-cache").string();
+      const Schedule schedule = run_project(p, {}, project.jobs, progress, cache);
       std::vector<OutputFile> files;
       if (!project.csv.empty()) files.push_back({project.csv, schedule_csv(schedule)});
       if (!project.json.empty()) files.push_back({project.json, schedule_json(schedule)});

@@ -5,6 +5,7 @@
 #include <cmath>
 
 #include "pipeline/variants.h"
+#include "project/result_cache.h"
 
 namespace edgeflux {
 
@@ -37,16 +38,37 @@ void sum_schedule(Schedule& schedule) {
   if (schedule.project.envelope_area) schedule.u_surcharge = schedule.heat_transfer_coefficient / *schedule.project.envelope_area;
 }
 
-Schedule run_project(const Project& project, const CalculationOptions& options, int jobs, const std::function<void(int, int)>& progress) {
+Schedule run_project(const Project& project, const CalculationOptions& options, int jobs, const std::function<void(int, int)>& progress,
+                     const std::string& cache_folder) {
+  const std::size_t n = project.junctions.size();
+  std::vector<std::string> keys(n);
+  std::vector<std::optional<VariantSummary>> cached(n);
   std::vector<VariantJob> batch;
-  for (const ProjectJunction& j : project.junctions) batch.push_back({j.reference, j.detail_file, j.overrides});
-  const std::vector<VariantSummary> results = run_variants(batch, options, jobs, progress);
+  std::vector<std::size_t> solved;  // junction index of each batch entry
+  for (std::size_t k = 0; k < n; ++k) {
+    const ProjectJunction& j = project.junctions[k];
+    if (!cache_folder.empty()) {
+      keys[k] = junction_cache_key(j, options.target);
+      cached[k] = load_cached_result(cache_folder, keys[k]);
+    }
+    if (!cached[k]) {
+      batch.push_back({j.reference, j.detail_file, j.overrides});
+      solved.push_back(k);
+    }
+  }
+  const std::vector<VariantSummary> fresh = run_variants(batch, options, jobs, progress);
+  std::vector<VariantSummary> results(n);
+  for (std::size_t b = 0; b < solved.size(); ++b) results[solved[b]] = fresh[b];
   Schedule schedule;
   schedule.project = project;
-  for (std::size_t k = 0; k < project.junctions.size(); ++k) {
+  for (std::size_t k = 0; k < n; ++k) {
+    if (!cache_folder.empty() && !cached[k] && results[k].error.empty())
+      if (const std::string problem = store_cached_result(cache_folder, keys[k], results[k]); !problem.empty())
+        schedule.notes.push_back("result of " + project.junctions[k].reference + " not cached: " + problem);
     ScheduleRow row;
     row.junction = project.junctions[k];
-    row.result = results[k];
+    row.from_cache = cached[k].has_value();
+    row.result = cached[k] ? *cached[k] : results[k];
     if (!row.result.error.empty()) {
       row.error = row.result.error;
     } else {

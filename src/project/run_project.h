@@ -11,8 +11,10 @@ namespace edgeflux {
 /// Solves each junction (its detail with its parameter values) on `jobs` threads (0: all cores),
 /// then reads ψ in the project's dimension system and sums H_TB = Σ ψ·l and ΔU_TB = H_TB / A.
 /// A junction that fails, or has no ψ in that system, is a row with its error; the others complete.
+/// With `cache_folder` (non-empty), results whose inputs are unchanged are read from it and new
+/// ones stored there (project/result_cache.h); those rows say so.
 Schedule run_project(const Project& project, const CalculationOptions& options, int jobs,
-                     const std::function<void(int done, int total)>& progress = {});
+                     const std::function<void(int done, int total)>& progress = {}, const std::string& cache_folder = "");
 
 /// The sums of a schedule whose rows are filled in (used by run_project; tests call it on rows
 /// made by hand).

@@ -46,10 +46,10 @@ std::string schedule_text(const Schedule& s) {
   for (const ScheduleRow& r : s.rows) {
     std::string description = r.junction.description.substr(0, description_width);
     if (r.error.empty()) {
-      out += fmt::format("  {:<{}}  {:<{}} {:>8} {:>9} {:>9}  {:>8}  {}{}\n", r.junction.reference, ref_width, description, description_width,
+      out += fmt::format("  {:<{}}  {:<{}} {:>8} {:>9} {:>9}  {:>8}  {}{}{}\n", r.junction.reference, ref_width, description, description_width,
                          fixed(*r.psi, digits::psi), fixed(r.length, 2), fixed(*r.psi_length, 3),
                          r.junction.assumed_psi ? fixed(*r.junction.assumed_psi, digits::psi) : "—", verdict_text(r.result),
-                         r.exceeds_assumed ? "   ! ψ above the assumed value" : "");
+                         r.exceeds_assumed ? "   ! ψ above the assumed value" : "", r.from_cache ? "   (cached)" : "");
     } else {
       out += fmt::format("  {:<{}}  {:<{}} NOT CALCULATED: {}\n", r.junction.reference, ref_width, description, description_width, r.error);
     }
@@ -64,6 +64,11 @@ std::string schedule_text(const Schedule& s) {
   if (exceeded > 0) out += fmt::format("  ! {} junction(s) exceed the ψ the energy calculation assumed\n", exceeded);
   if (s.failed > 0)
     out += fmt::format("  ! {} junction(s) not calculated: H_TB leaves them out and is INCOMPLETE\n", s.failed);
+  const auto cached = std::count_if(s.rows.begin(), s.rows.end(), [](const ScheduleRow& r) { return r.from_cache; });
+  if (cached > 0)
+    out += fmt::format("  {} of {} results from the cache (inputs unchanged since they were solved); the others solved in this run\n", cached,
+                       s.rows.size());
+  for (const std::string& note : s.notes) out += "  note: " + note + "\n";
   out += "\nResults depend on the inputs and modelling choices; local building codes and a qualified professional decide compliance.\n";
   return out;
 }
@@ -115,7 +120,7 @@ std::string schedule_json(const Schedule& s) {
                     {"criteria", criteria},
                     {"assumed_psi_w_per_mk", row.junction.assumed_psi ? nlohmann::ordered_json(*row.junction.assumed_psi) : nullptr},
                     {"assumed_source", row.junction.assumed_source}, {"exceeds_assumed", row.exceeds_assumed},
-                    {"input_sha256", row.result.input_sha256}, {"error", row.error.empty() ? nlohmann::ordered_json() : nlohmann::ordered_json(row.error)}});
+                    {"input_sha256", row.result.input_sha256}, {"from_cache", row.from_cache}, {"error", row.error.empty() ? nlohmann::ordered_json() : nlohmann::ordered_json(row.error)}});
   }
   j["heat_transfer_coefficient_h_tb_w_per_k"] = s.heat_transfer_coefficient;
   j["heat_transfer_coefficient_error_w_per_k"] = s.heat_transfer_coefficient_error;

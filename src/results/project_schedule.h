@@ -49,6 +49,7 @@ struct ScheduleRow {
   std::optional<double> psi_length;   ///< ψ·l, W/K
   bool exceeds_assumed = false;       ///< computed ψ above the assumed ψ
   std::string error;                  ///< why this junction has no ψ (empty when it has one)
+  bool from_cache = false;            ///< the result was read from the cache, not solved in this run
 };
 
 struct Schedule {
@@ -58,6 +59,7 @@ struct Schedule {
   double heat_transfer_coefficient_error = 0;  ///< Σ |ψ error|·l, W/K
   std::optional<double> u_surcharge;        ///< ΔU_TB = H_TB / A, W/(m²K)
   int failed = 0;                           ///< junctions without a ψ
+  std::vector<std::string> notes;           ///< e.g. a cache that could not be written
 };
 
 }  // namespace edgeflux

@@ -121,3 +121,42 @@ TEST_CASE("the example project: the schedule's sum multiplies out from its rows,
   const std::string csv = schedule_csv(s);
   CHECK(csv.rfind("reference,description,detail,psi_external_w_per_mk", 0) == 0);
 }
+
+TEST_CASE("results are cached by their inputs: a re-run reads them back unchanged, and a junction edited in between is the only one solved again") {
+  const fs::path folder = test::scratch_folder("project-cache");
+  fs::remove_all(folder);
+  fs::create_directories(folder);
+  for (const char* name : {"intermediate-floor-external-insulation.xml", "external-wall-corner.xml"})
+    fs::copy_file(test::source_path(std::string("details/") + name), folder / name);
+  const fs::path file = folder / "p.xml";
+  std::ofstream(file) << project(
+      R"(<junction reference="J01" detail="intermediate-floor-external-insulation.xml"><length metres="10"/></junction>
+         <junction reference="J02" detail="external-wall-corner.xml"><length metres="6"/></junction>)");
+  const std::string cache = (folder / "cache").string();
+  const Schedule first = run_project(read_project_file(file.string()), {}, 1, {}, cache);
+  CHECK_FALSE(first.rows[0].from_cache);
+  CHECK_FALSE(first.rows[1].from_cache);
+  const Schedule second = run_project(read_project_file(file.string()), {}, 1, {}, cache);
+  CHECK(second.rows[0].from_cache);
+  CHECK(second.rows[1].from_cache);
+  CHECK(second.heat_transfer_coefficient == first.heat_transfer_coefficient);  // bit-identical through the cache
+  CHECK(second.rows[1].result.verdicts.size() == first.rows[1].result.verdicts.size());
+  // Edit the corner's detail file (a comment is enough: the key is its bytes): only J02 is solved again.
+  const fs::path corner = folder / "external-wall-corner.xml";
+  std::ifstream in(corner);
+  std::string text((std::istreambuf_iterator<char>(in)), std::istreambuf_iterator<char>());
+  in.close();
+  const std::size_t at = text.find("<parameter name=\"");
+  REQUIRE(at != std::string::npos);
+  text.insert(at, "<!-- edited -->\n    ");
+  std::ofstream(corner) << text;
+  const Schedule third = run_project(read_project_file(file.string()), {}, 1, {}, cache);
+  CHECK(third.rows[0].from_cache);
+  CHECK_FALSE(third.rows[1].from_cache);
+  // A damaged entry is a miss, not an error.
+  for (const auto& entry : fs::directory_iterator(cache)) std::ofstream(entry.path()) << "{ damaged";
+  const Schedule fourth = run_project(read_project_file(file.string()), {}, 1, {}, cache);
+  CHECK_FALSE(fourth.rows[0].from_cache);
+  CHECK(fourth.heat_transfer_coefficient == first.heat_transfer_coefficient);
+  fs::remove_all(folder);
+}
