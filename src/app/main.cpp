@@ -345,7 +345,7 @@ int main(int argc, char** argv) {
                       "Solve once on the mesh of --density instead of refining to the accuracy targets");
 
   struct ProjectArgs {
-    std::string file, csv, json, cache;
+    std::string file, csv, json, cache, hand_in;
     int jobs = 0;
     bool quiet = false, no_cache = false;
   } project;
@@ -359,6 +359,8 @@ int main(int argc, char** argv) {
   project_cmd->add_option("--cache", project.cache,
                           "Folder of results kept between runs (default: .edgeflux-cache beside the project file); unchanged junctions are not solved again");
   project_cmd->add_flag("--no-cache", project.no_cache, "Solve every junction, and keep no results");
+  project_cmd->add_option("--hand-in", project.hand_in,
+                          "Write the hand-in set into this folder: index.html (the schedule, linked) and each junction's report");
 
   std::string material_search;
   CLI::App* materials_cmd = app.add_subcommand(
@@ -460,6 +462,7 @@ int main(int argc, char** argv) {
       std::vector<OutputFile> planned;
       for (const std::string* path : {&project.csv, &project.json})
         if (!path->empty()) planned.push_back({*path, ""});
+      if (!project.hand_in.empty()) planned.push_back({(std::filesystem::path(project.hand_in) / "index.html").string(), "", true});
       std::vector<std::string> inputs{project.file};
       for (const ProjectJunction& j : p.junctions) inputs.push_back(j.detail_file);
       check_output_paths(planned, inputs);
@@ -469,10 +472,27 @@ int main(int argc, char** argv) {
       const std::string cache = project.no_cache ? std::string()
                                 : !project.cache.empty() ? project.cache
                                                          : (std::filesystem::path(project.file).parent_path() / ".edgeflux-cache").string();
-      const Schedule schedule = run_project(p, {}, project.jobs, progress, cache);
+      // The hand-in set needs every junction's report, so every junction is solved in this run.
+      std::vector<std::string> reports(p.junctions.size());
+      const std::string generated = report_timestamp();
+      CalculationHook build_report;
+      if (!project.hand_in.empty())
+        build_report = [&](std::size_t k, const CrossSection& section, const Calculation& calc) {
+          reports[k] = html_report(section, calc, report_drawings(section, calc), {read_whole_file(section.file), generated, std::nullopt});
+        };
+      const Schedule schedule = run_project(p, {}, project.jobs, progress, cache, build_report);
       std::vector<OutputFile> files;
       if (!project.csv.empty()) files.push_back({project.csv, schedule_csv(schedule)});
       if (!project.json.empty()) files.push_back({project.json, schedule_json(schedule)});
+      if (!project.hand_in.empty()) {
+        std::vector<std::string> links(p.junctions.size());
+        for (std::size_t k = 0; k < p.junctions.size(); ++k)
+          if (!reports[k].empty()) {
+            links[k] = report_file_name(p.junctions[k].reference);
+            files.push_back({(std::filesystem::path(project.hand_in) / links[k]).string(), reports[k], true});
+          }
+        files.push_back({(std::filesystem::path(project.hand_in) / "index.html").string(), schedule_page(schedule, links, generated), true});
+      }
       check_output_paths(files, inputs);
       fmt::print("{}", schedule_text(schedule));
       require_summary_written();

@@ -82,12 +82,14 @@ void parallel_for(int n, int jobs, const std::function<void(int)>& task, const s
 }
 
 VariantSummary run_one(const std::string& label, const std::string& file, const ParameterOverrides& overrides,
-                       const CalculationOptions& options) {
+                       const CalculationOptions& options, std::size_t index = 0, const CalculationHook& with_calculation = {}) {
   try {
     const CrossSection section = read_detail_file(file, overrides, arc_tolerance_for(options.target));
     CalculationOptions quiet = options;
     quiet.progress = nullptr;
-    VariantSummary v = summarise(label, file, section, calculate(section, quiet));
+    const Calculation calc = calculate(section, quiet);
+    if (with_calculation) with_calculation(index, section, calc);
+    VariantSummary v = summarise(label, file, section, calc);
     v.parameters = overrides;
     std::ifstream in(file, std::ios::binary);
     std::ostringstream text;
@@ -131,10 +133,11 @@ std::vector<VariantSummary> run_sweep(const std::string& file, const std::vector
 }
 
 std::vector<VariantSummary> run_variants(const std::vector<VariantJob>& batch, const CalculationOptions& options, int jobs,
-                                         const std::function<void(int, int)>& progress) {
+                                         const std::function<void(int, int)>& progress, const CalculationHook& with_calculation) {
   std::vector<VariantSummary> results(batch.size());
-  parallel_for(static_cast<int>(batch.size()), jobs, [&](int i) { results[i] = run_one(batch[i].label, batch[i].file, batch[i].overrides, options); },
-               progress);
+  parallel_for(static_cast<int>(batch.size()), jobs, [&](int i) {
+    results[i] = run_one(batch[i].label, batch[i].file, batch[i].overrides, options, static_cast<std::size_t>(i), with_calculation);
+  }, progress);
   return results;
 }
 

@@ -37,9 +37,14 @@ struct VariantJob {
   ParameterOverrides overrides;
 };
 
+/// Called in the worker thread with a job's index, section and calculation, before they are
+/// discarded (to build a report from them); it must only touch storage of its own index.
+using CalculationHook = std::function<void(std::size_t index, const CrossSection&, const Calculation&)>;
+
 /// Any batch of calculations in parallel, results in job order (identical for any `jobs`).
 std::vector<VariantSummary> run_variants(const std::vector<VariantJob>& batch, const CalculationOptions& options, int jobs,
-                                         const std::function<void(int done, int total)>& progress = {});
+                                         const std::function<void(int done, int total)>& progress = {},
+                                         const CalculationHook& with_calculation = {});
 
 /// Several detail files side by side, in parallel.
 std::vector<VariantSummary> run_comparison(const std::vector<std::string>& files, const CalculationOptions& options, int jobs,

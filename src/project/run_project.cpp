@@ -39,7 +39,7 @@ void sum_schedule(Schedule& schedule) {
 }
 
 Schedule run_project(const Project& project, const CalculationOptions& options, int jobs, const std::function<void(int, int)>& progress,
-                     const std::string& cache_folder) {
+                     const std::string& cache_folder, const CalculationHook& with_calculation) {
   const std::size_t n = project.junctions.size();
   std::vector<std::string> keys(n);
   std::vector<std::optional<VariantSummary>> cached(n);
@@ -49,14 +49,18 @@ Schedule run_project(const Project& project, const CalculationOptions& options, 
     const ProjectJunction& j = project.junctions[k];
     if (!cache_folder.empty()) {
       keys[k] = junction_cache_key(j, options.target);
-      cached[k] = load_cached_result(cache_folder, keys[k]);
+      if (!with_calculation) cached[k] = load_cached_result(cache_folder, keys[k]);
     }
     if (!cached[k]) {
       batch.push_back({j.reference, j.detail_file, j.overrides});
       solved.push_back(k);
     }
   }
-  const std::vector<VariantSummary> fresh = run_variants(batch, options, jobs, progress);
+  // The hook is told the junction's own index, not the batch's.
+  const CalculationHook hook = with_calculation ? CalculationHook([&](std::size_t b, const CrossSection& section, const Calculation& calc) {
+    with_calculation(solved[b], section, calc);
+  }) : CalculationHook();
+  const std::vector<VariantSummary> fresh = run_variants(batch, options, jobs, progress, hook);
   std::vector<VariantSummary> results(n);
   for (std::size_t b = 0; b < solved.size(); ++b) results[solved[b]] = fresh[b];
   Schedule schedule;

@@ -4,8 +4,10 @@
 #include <nlohmann/json.hpp>
 
 #include <algorithm>
+#include <cctype>
 
 #include "physics/moisture_verdict.h"
+#include "report/html_parts.h"
 #include "report/number_format.h"
 #include "report/text_format.h"
 
@@ -128,6 +130,71 @@ std::string schedule_json(const Schedule& s) {
   j["junctions_not_calculated"] = s.failed;
   j["cautions"] = standard_cautions();
   return j.dump(2, ' ', false, nlohmann::ordered_json::error_handler_t::replace) + "\n";
+}
+
+std::string report_file_name(const std::string& reference) {
+  std::string name;
+  for (char c : reference) name += std::isalnum(static_cast<unsigned char>(c)) || c == '-' || c == '_' ? c : '_';
+  return (name.empty() ? std::string("junction") : name) + ".html";
+}
+
+std::string schedule_page(const Schedule& s, const std::vector<std::string>& report_files, const std::string& generated) {
+  using html::escape;
+  const Project& p = s.project;
+  const std::string title = p.record.project.empty() ? "Thermal bridge schedule" : "Thermal bridge schedule — " + p.record.project;
+  std::string h = fmt::format("<!DOCTYPE html>\n<html lang=\"en\">\n<head>\n<meta charset=\"utf-8\">\n<title>{}</title>\n<style>{}"
+                              "@page {{ @top-left {{ content: {}; }} @bottom-right {{ content: \"page \" counter(page) \" of \" counter(pages); }} }}\n"
+                              "</style>\n</head>\n<body>\n",
+                              escape(title), html::report_css,
+                              html::css_string("Thermal bridge schedule" + (p.record.revision.empty() ? "" : " · rev. " + p.record.revision) + " · " +
+                                               (p.record.date.empty() ? generated : p.record.date)));
+  h += fmt::format("<header class=\"title-block\">\n<div class=\"kicker\">Thermal bridge schedule · ψ in {} dimensions · ISO 14683</div>\n<h1>{}</h1>\n"
+                   "<dl class=\"record\">",
+                   dimension_system_name(p.system), escape(p.record.project.empty() ? p.file : p.record.project));
+  for (const auto& [label, value] : p.record.fields())
+    h += fmt::format("<div><dt>{}</dt><dd>{}</dd></div>", label, value->empty() ? "<span class=\"blank\">—</span>" : escape(*value));
+  h += fmt::format("<div class=\"wide\"><dt>Input</dt><dd>{} · calculated {} with edgeflux {}</dd></div></dl>\n</header>\n", escape(p.file),
+                   escape(generated), EDGEFLUX_VERSION);
+  h += fmt::format("<table class=\"compact\"><caption>Junctions (ψ in {} dimensions, lengths in m)</caption><tr><th>Ref.</th><th>Description</th>"
+                   "<th class=\"num\">ψ [W/(m·K)]</th><th class=\"num\">l [m]</th><th class=\"num\">ψ·l [W/K]</th><th class=\"num\">assumed ψ</th>"
+                   "<th>f<sub>Rsi</sub> and criteria</th></tr>\n",
+                   dimension_system_name(p.system));
+  for (std::size_t k = 0; k < s.rows.size(); ++k) {
+    const ScheduleRow& r = s.rows[k];
+    const std::string reference = k < report_files.size() && !report_files[k].empty()
+                                      ? fmt::format("<a href=\"{}\">{}</a>", escape(report_files[k]), escape(r.junction.reference))
+                                      : escape(r.junction.reference);
+    if (!r.error.empty()) {
+      h += fmt::format("<tr><td>{}</td><td>{}</td><td colspan=\"5\"><b>not calculated:</b> {}</td></tr>\n", reference, escape(r.junction.description),
+                       escape(r.error));
+      continue;
+    }
+    std::string taken;
+    for (const TakenLength& l : r.junction.lengths) taken += fmt::format("<br><span class=\"small\">{} m: {}</span>", fixed(l.metres, 2), escape(l.where));
+    h += fmt::format("<tr><td>{}</td><td>{}{}</td><td class=\"num\">{}</td><td class=\"num\">{}</td><td class=\"num\">{}</td><td class=\"num\">{}{}</td>"
+                     "<td>{}</td></tr>\n",
+                     reference, escape(r.junction.description), taken, fixed(*r.psi, digits::psi), fixed(r.length, 2), fixed(*r.psi_length, 3),
+                     r.junction.assumed_psi ? fixed(*r.junction.assumed_psi, digits::psi) : "—",
+                     r.exceeds_assumed ? " <b>exceeded</b>" : "", escape(verdict_text(r.result)));
+  }
+  h += fmt::format("<tr class=\"carried\"><td colspan=\"4\"><b>H<sub>TB</sub> = Σ ψ·l</b>{}</td><td class=\"num\"><b>{}</b></td><td colspan=\"2\">W/K, "
+                   "estimated discretisation error ± {} W/K</td></tr>\n",
+                   s.failed > 0 ? fmt::format(" — <b>incomplete</b>: {} junction(s) not calculated", s.failed) : "", fixed(s.heat_transfer_coefficient, 3),
+                   error_text(s.heat_transfer_coefficient_error, 3));
+  if (s.u_surcharge)
+    h += fmt::format("<tr><td colspan=\"4\">ΔU<sub>TB</sub> = H<sub>TB</sub> / A = {} / {} m²</td><td class=\"num\"><b>{}</b></td><td colspan=\"2\">W/(m²K)</td></tr>\n",
+                     fixed(s.heat_transfer_coefficient, 3), fixed(*p.envelope_area, 1), fixed(*s.u_surcharge, 4));
+  h += "</table>\n";
+  std::string sources;
+  for (const ScheduleRow& r : s.rows)
+    if (r.junction.assumed_psi)
+      sources += fmt::format("<li>{}: assumed ψ {} — {}</li>", escape(r.junction.reference), fixed(*r.junction.assumed_psi, digits::psi),
+                             escape(r.junction.assumed_source));
+  if (!sources.empty()) h += "<p class=\"small\"><b>Sources of the assumed values</b></p><ul class=\"small\">" + sources + "</ul>\n";
+  h += "<div class=\"cautions\"><h3>Cautions — read before using these results</h3><ul>\n";
+  for (const std::string& c : standard_cautions()) h += "<li>" + escape(c) + "</li>\n";
+  h += "</ul></div>\n</body>\n</html>\n";
+  return h;
 }
 
 }  // namespace edgeflux

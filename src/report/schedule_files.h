@@ -2,6 +2,7 @@
 #pragma once
 
 #include <string>
+#include <vector>
 
 #include "results/project_schedule.h"
 
@@ -17,5 +18,14 @@ std::string schedule_csv(const Schedule& schedule);
 
 /// The project, each junction with its lengths and results, and the sums (format "edgeflux-schedule", version 1).
 std::string schedule_json(const Schedule& schedule);
+
+/// The schedule as the first page of the hand-in set: the record, one row per junction linking to
+/// its report (`report_files[k]` for junction k, empty: no link), the sums, the cautions; prints on
+/// A4 or Letter with a running header and page numbers. `generated`: the time of the run.
+std::string schedule_page(const Schedule& schedule, const std::vector<std::string>& report_files, const std::string& generated);
+
+/// A file name for a junction's report from its reference: letters, digits, '-' and '_' kept,
+/// anything else '_', then ".html" (e.g. "J03" → "J03.html").
+std::string report_file_name(const std::string& reference);
 
 }  // namespace edgeflux

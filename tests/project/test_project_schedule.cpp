@@ -160,3 +160,29 @@ TEST_CASE("results are cached by their inputs: a re-run reads them back unchange
   CHECK(fourth.heat_transfer_coefficient == first.heat_transfer_coefficient);
   fs::remove_all(folder);
 }
+
+TEST_CASE("the hand-in set: the schedule page links every junction's report, each a junction sheet of its own") {
+  const fs::path folder = test::scratch_folder("project-hand-in");
+  fs::remove_all(folder);
+  fs::create_directories(folder);
+  const fs::path file = folder / "p.xml";
+  const std::string details = test::source_path("details");
+  std::ofstream(file) << project("<junction reference=\"J/1\" description=\"floor\" detail=\"" + details +
+                                 "/intermediate-floor-external-insulation.xml\"><length metres=\"10\"/></junction>\n"
+                                 "<junction reference=\"J02\" description=\"corner\" detail=\"" + details +
+                                 "/external-wall-corner.xml\"><length metres=\"6\"/></junction>");
+  const auto run = test::run_program("project -q --no-cache '" + file.string() + "' --hand-in '" + (folder / "set").string() + "'");
+  REQUIRE(run.exit_code == 0);
+  std::ifstream in(folder / "set" / "index.html");
+  const std::string index((std::istreambuf_iterator<char>(in)), std::istreambuf_iterator<char>());
+  for (const char* report : {"J_1.html", "J02.html"}) {
+    CAPTURE(report);
+    CHECK(index.find(std::string("href=\"") + report + "\"") != std::string::npos);
+    std::ifstream r(folder / "set" / report);
+    const std::string html((std::istreambuf_iterator<char>(r)), std::istreambuf_iterator<char>());
+    CHECK(html.find("id=\"sheet\"") != std::string::npos);
+  }
+  CHECK(index.find("H<sub>TB</sub> = Σ ψ·l") != std::string::npos);
+  CHECK(index.find("counter(pages)") != std::string::npos);
+  fs::remove_all(folder);
+}
