@@ -478,7 +478,10 @@ int main(int argc, char** argv) {
       CalculationHook build_report;
       if (!project.hand_in.empty())
         build_report = [&](std::size_t k, const CrossSection& section, const Calculation& calc) {
-          reports[k] = html_report(section, calc, report_drawings(section, calc), {read_whole_file(section.file), generated, std::nullopt});
+          // The junction's report carries the project's record and the junction's reference.
+          CrossSection in_project = section;
+          in_project.record = record_in_project(section.record, p.record, p.junctions[k].reference);
+          reports[k] = html_report(in_project, calc, report_drawings(in_project, calc), {read_whole_file(section.file), generated, std::nullopt});
         };
       const Schedule schedule = run_project(p, {}, project.jobs, progress, cache, build_report);
       std::vector<OutputFile> files;

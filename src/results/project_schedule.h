@@ -6,6 +6,7 @@
 #include <map>
 #include <optional>
 #include <string>
+#include <utility>
 #include <vector>
 
 #include "geometry/cross_section.h"
@@ -38,6 +39,20 @@ struct Project {
   std::optional<double> envelope_area;  ///< m², for ΔU_TB = H_TB / A
   std::vector<ProjectJunction> junctions;
 };
+
+/// The record a junction's report shows in a project: the project's fields where it gives them
+/// (it is the authority for project, client, site, revision, assessor, checker and date), the
+/// detail's drawing unless the project names one only, and the junction's reference.
+inline JunctionRecord record_in_project(const JunctionRecord& detail, const JunctionRecord& project, const std::string& reference) {
+  JunctionRecord r = detail;
+  r.reference = reference;
+  for (auto [field, value] : {std::pair{&r.project, &project.project}, {&r.client, &project.client}, {&r.site, &project.site},
+                              {&r.revision, &project.revision}, {&r.assessor, &project.assessor}, {&r.checker, &project.checker},
+                              {&r.date, &project.date}})
+    if (!value->empty()) *field = *value;
+  if (r.drawing.empty()) r.drawing = project.drawing;
+  return r;
+}
 
 /// A junction's line of the schedule.
 struct ScheduleRow {

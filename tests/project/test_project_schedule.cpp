@@ -186,3 +186,21 @@ TEST_CASE("the hand-in set: the schedule page links every junction's report, eac
   CHECK(index.find("counter(pages)") != std::string::npos);
   fs::remove_all(folder);
 }
+
+TEST_CASE("in a project a junction's record is the project's, with the junction's reference and the detail's own drawing") {
+  JunctionRecord detail;
+  detail.drawing = "D-12";
+  detail.assessor = "detail author";
+  JunctionRecord project;
+  project.project = "P";
+  project.assessor = "A";
+  project.drawing = "A-300 series";
+  project.date = "2026-11-30";
+  const JunctionRecord r = record_in_project(detail, project, "J07");
+  CHECK(r.reference == "J07");
+  CHECK(r.project == "P");
+  CHECK(r.assessor == "A");
+  CHECK(r.date == "2026-11-30");
+  CHECK(r.drawing == "D-12");
+  CHECK(record_in_project({}, project, "J07").drawing == "A-300 series");
+}
