@@ -68,7 +68,8 @@ std::string psi_rows(const CrossSection& section, const Calculation& calc) {
       h += row(fmt::format("ψ {}–{}, {} dimensions", escape(section.environments[pair.first].id), escape(section.environments[pair.second].id),
                            dimension_system_name(p.system)),
                fixed(p.psi, digits::psi) + " W/(m·K)",
-               fmt::format("L<sub>{}</sub> {} less U·l of {}", "ij", fixed(pair.coupling, digits::coupling), escape(fmt::format("{}", fmt::join(pair.elements, ", ")))),
+               fmt::format("coupling coefficient L = {} W/(m·K) of this pair less U·l of “{}”", fixed(pair.coupling, digits::coupling),
+                           escape(fmt::format("{}", fmt::join(pair.elements, "”, “")))),
                section.carried_forward == p.system ? "carried" : "");
   return h;
 }

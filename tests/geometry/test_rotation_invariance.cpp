@@ -69,8 +69,7 @@ void compare(const Calculation& base, const Calculation& turned, Figures& figure
 std::vector<std::string> shipped_files() {
   std::vector<std::string> files;
   for (const char* folder : {"details", "examples"})
-    for (const auto& entry : fs::directory_iterator(test::source_path(folder)))
-      if (entry.path().extension() == ".xml") files.push_back(entry.path().string());
+    for (const std::string& file : test::detail_files_in(folder)) files.push_back(file);
   for (const char* name : {"iso10211_case1.xml", "iso10211_case2.xml"})
     files.push_back(test::source_path(std::string("tests/reference/") + name));
   std::sort(files.begin(), files.end());

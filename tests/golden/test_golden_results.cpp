@@ -43,11 +43,7 @@ void record(Results& r, const std::string& file, const Calculation& calc) {
 Results compute() {
   Results r;
   for (const char* folder : {"examples", "details"}) {
-    std::vector<fs::path> files;
-    for (const auto& entry : fs::directory_iterator(test::source_path(folder)))
-      if (entry.path().extension() == ".xml") files.push_back(entry.path());
-    std::sort(files.begin(), files.end());
-    for (const fs::path& file : files) {
+    for (const fs::path file : test::detail_files_in(folder)) {
       const std::string name = std::string(folder) + "/" + file.filename().string();
       CAPTURE(name);
       record(r, name, calculate(read_detail_file(file.string()), {}));

@@ -92,14 +92,10 @@ TEST_CASE("Case 1: each probe's error bar contains its difference to the series 
 }
 
 TEST_CASE("refinement terminates on every shipped detail, example and reference file") {
-  namespace fs = std::filesystem;
   for (const char* folder : {"examples", "tests/reference", "details"}) {
-    const fs::path dir = test::source_path(folder);
-    if (!fs::exists(dir)) continue;
-    for (const auto& entry : fs::directory_iterator(dir)) {
-      if (entry.path().extension() != ".xml") continue;
-      CAPTURE(entry.path().string());
-      const Calculation calc = calculate(read_detail_file(entry.path().string()), {});
+    for (const std::string& file : test::detail_files_in(folder)) {
+      CAPTURE(file);
+      const Calculation calc = calculate(read_detail_file(file), {});
       CHECK(calc.convergence.target_met);
       CHECK(calc.convergence.levels.size() >= 3);
       CHECK(calc.mesh.n_points() < 2'000'000);
