@@ -18,6 +18,7 @@
 #include <filesystem>
 #include <fstream>
 #include <iostream>
+#include <numbers>
 #include <optional>
 #include <sstream>
 
@@ -32,6 +33,7 @@
 #include "report/import_files.h"
 #include "report/import_picture.h"
 #include "report/json_results.h"
+#include "physics/ground_floor.h"
 #include "project/read_project_file.h"
 #include "project/run_project.h"
 #include "report/number_format.h"
@@ -362,6 +364,18 @@ int main(int argc, char** argv) {
   project_cmd->add_option("--hand-in", project.hand_in,
                           "Write the hand-in set into this folder: index.html (the schedule, linked) and each junction's report");
 
+  struct GroundArgs {
+    double area = 0, perimeter = 0, wall = 0, floor_resistance = 0, soil = 2.0;
+  } ground;
+  CLI::App* ground_cmd = app.add_subcommand("ground", "U-value of a slab-on-ground floor by ISO 13370, with its derivation");
+  ground_cmd->add_option("--area", ground.area, "Floor area A, m²")->required()->check(finite_range(1e-6, 1e9));
+  ground_cmd->add_option("--perimeter", ground.perimeter, "Exposed perimeter P, m")->required()->check(finite_range(1e-6, 1e9));
+  ground_cmd->add_option("--wall-thickness", ground.wall, "Full thickness w of the external walls, m")->required()->check(finite_range(0, 10));
+  ground_cmd->add_option("--floor-resistance", ground.floor_resistance, "Thermal resistance Rf of the floor construction, m²K/W")
+      ->required()->check(finite_range(0, 100));
+  ground_cmd->add_option("--soil-conductivity", ground.soil, "λ of the ground, W/(m·K): 2.0 when unknown (ISO 13370), 1.5 clay or silt, 3.5 rock")
+      ->check(finite_range(0.01, 10));
+
   std::string material_search;
   CLI::App* materials_cmd = app.add_subcommand(
       "materials", "List the built-in material library (λ, density, source); give a word to search ids, categories and sources");
@@ -502,6 +516,29 @@ int main(int argc, char** argv) {
       write_output_files(files);
       for (const OutputFile& f : files) fmt::print("Written: {}\n", f.path);
       return with_output_flushed(schedule.failed == 0 ? 0 : 2);
+    }
+    if (*ground_cmd) {
+      SlabOnGround floor;
+      floor.characteristic_dimension = characteristic_dimension(ground.area, ground.perimeter);
+      floor.wall_thickness = ground.wall;
+      floor.floor_resistance = ground.floor_resistance;
+      floor.ground_conductivity = ground.soil;
+      const GroundFloorU u = slab_on_ground_u(floor);
+      fmt::print("Slab-on-ground floor, ISO 13370\n"
+                 "  B' = A / (0.5·P) = {:.2f} / (0.5 · {:.2f}) = {:.3f} m\n"
+                 "  dt = w + λ·(Rsi + Rf + Rse) = {:.3f} + {:.2f} · ({:.2f} + {:.3f} + {:.2f}) = {:.3f} m\n",
+                 ground.area, ground.perimeter, floor.characteristic_dimension, floor.wall_thickness, floor.ground_conductivity,
+                 floor.interior_resistance, floor.floor_resistance, floor.exterior_resistance, u.equivalent_thickness);
+      if (u.well_insulated)
+        fmt::print("  dt ≥ B' (well insulated): Ug = λ / (0.457·B' + dt) = {:.2f} / ({:.3f} + {:.3f}) = {:.3f} W/(m²K)\n", floor.ground_conductivity,
+                   0.457 * floor.characteristic_dimension, u.equivalent_thickness, u.u_value);
+      else
+        fmt::print("  dt < B': Ug = 2λ / (π·B' + dt) · ln(π·B'/dt + 1) = {:.2f} / {:.3f} · ln({:.3f}) = {:.3f} W/(m²K)\n", 2 * floor.ground_conductivity,
+                   std::numbers::pi * floor.characteristic_dimension + u.equivalent_thickness,
+                   std::numbers::pi * floor.characteristic_dimension / u.equivalent_thickness + 1.0, u.u_value);
+      fmt::print("Rsi 0.17 (heat flow downwards) and Rse 0.04 m²K/W (ISO 6946). Results depend on the inputs; local building codes and a "
+                 "qualified professional decide compliance.\n");
+      return with_output_flushed(0);
     }
     if (*materials_cmd) {
       const auto found = search_material_library(material_search);
