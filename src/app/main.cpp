@@ -105,7 +105,7 @@ void carry_forward(CrossSection& section, DimensionSystem system) {
                       "add <flanking-elements> to the detail (their U and lengths define ψ), or leave out --carry-forward");
   for (const FlankingElement& f : section.flanking_elements)
     if (!f.length[static_cast<int>(system)])
-      throw_input_error({"command line", 0}, "--carry-forward " + std::string(system == DimensionSystem::overall_internal ? "overall-internal" : dimension_system_name(system)),
+      throw_input_error({"command line", 0}, "--carry-forward " + std::string(dimension_system_word(system)),
                         fmt::format("flanking element '{}' has no {} length ({}:{})", f.id, dimension_system_name(system), f.where.file, f.where.line),
                         "choose a system the detail gives lengths for, or add that length to the element");
   section.carried_forward = system;
@@ -293,6 +293,89 @@ std::function<void(int, int)> variant_progress(bool quiet) {
   return [](int done, int total) { fmt::print(stderr, "\redgeflux: {}/{} variants solved{}", done, total, done == total ? "\n" : ""); };
 }
 
+struct ProjectArgs {
+  std::string file, csv, json, cache, hand_in;
+  int jobs = 0;
+  bool quiet = false, no_cache = false;
+};
+
+struct GroundArgs {
+  double area = 0, perimeter = 0, wall = 0, floor_resistance = 0, soil = 2.0;
+};
+
+/// `edgeflux project`: every junction of a project file solved, the schedule printed and written.
+int run_project_command(const ProjectArgs& project) {
+  const Project p = read_project_file(project.file);
+  std::vector<OutputFile> planned;
+  for (const std::string* path : {&project.csv, &project.json})
+    if (!path->empty()) planned.push_back({*path, ""});
+  if (!project.hand_in.empty()) planned.push_back({(std::filesystem::path(project.hand_in) / "index.html").string(), "", true});
+  std::vector<std::string> inputs{project.file};
+  for (const ProjectJunction& j : p.junctions) inputs.push_back(j.detail_file);
+  check_output_paths(planned, inputs);
+  auto progress = project.quiet ? std::function<void(int, int)>() : [](int done, int total) {
+    fmt::print(stderr, "\redgeflux: {}/{} junctions solved{}", done, total, done == total ? "\n" : "");
+  };
+  const std::string cache = project.no_cache ? std::string()
+                            : !project.cache.empty() ? project.cache
+                                                     : (std::filesystem::path(project.file).parent_path() / ".edgeflux-cache").string();
+  // The hand-in set needs every junction's report, so every junction is solved in this run.
+  std::vector<std::string> reports(p.junctions.size());
+  const std::string generated = report_timestamp();
+  CalculationHook build_report;
+  if (!project.hand_in.empty())
+    build_report = [&](std::size_t k, const CrossSection& section, const Calculation& calc) {
+      // The junction's report carries the project's record and the junction's reference.
+      CrossSection in_project = section;
+      in_project.record = record_in_project(section.record, p.record, p.junctions[k].reference);
+      reports[k] = html_report(in_project, calc, report_drawings(in_project, calc), {read_whole_file(section.file), generated, std::nullopt});
+    };
+  const Schedule schedule = run_project(p, {}, project.jobs, progress, cache, build_report);
+  std::vector<OutputFile> files;
+  if (!project.csv.empty()) files.push_back({project.csv, schedule_csv(schedule)});
+  if (!project.json.empty()) files.push_back({project.json, schedule_json(schedule)});
+  if (!project.hand_in.empty()) {
+    std::vector<std::string> links(p.junctions.size());
+    for (std::size_t k = 0; k < p.junctions.size(); ++k)
+      if (!reports[k].empty()) {
+        links[k] = report_file_name(p.junctions[k].reference);
+        files.push_back({(std::filesystem::path(project.hand_in) / links[k]).string(), reports[k], true});
+      }
+    files.push_back({(std::filesystem::path(project.hand_in) / "index.html").string(), schedule_page(schedule, links, generated), true});
+  }
+  check_output_paths(files, inputs);
+  fmt::print("{}", schedule_text(schedule));
+  require_summary_written();
+  write_output_files(files);
+  for (const OutputFile& f : files) fmt::print("Written: {}\n", f.path);
+  return with_output_flushed(schedule.failed == 0 ? 0 : 2);
+}
+
+/// `edgeflux ground`: Ug of a slab on ground by ISO 13370, with its derivation.
+int run_ground(const GroundArgs& ground) {
+  SlabOnGround floor;
+  floor.characteristic_dimension = characteristic_dimension(ground.area, ground.perimeter);
+  floor.wall_thickness = ground.wall;
+  floor.floor_resistance = ground.floor_resistance;
+  floor.ground_conductivity = ground.soil;
+  const GroundFloorU u = slab_on_ground_u(floor);
+  fmt::print("Slab-on-ground floor, ISO 13370\n"
+             "  B' = A / (0.5·P) = {:.2f} / (0.5 · {:.2f}) = {:.3f} m\n"
+             "  dt = w + λ·(Rsi + Rf + Rse) = {:.3f} + {:.2f} · ({:.2f} + {:.3f} + {:.2f}) = {:.3f} m\n",
+             ground.area, ground.perimeter, floor.characteristic_dimension, floor.wall_thickness, floor.ground_conductivity,
+             floor.interior_resistance, floor.floor_resistance, floor.exterior_resistance, u.equivalent_thickness);
+  if (u.well_insulated)
+    fmt::print("  dt ≥ B' (well insulated): Ug = λ / (0.457·B' + dt) = {:.2f} / ({:.3f} + {:.3f}) = {:.3f} W/(m²K)\n", floor.ground_conductivity,
+               0.457 * floor.characteristic_dimension, u.equivalent_thickness, u.u_value);
+  else
+    fmt::print("  dt < B': Ug = 2λ / (π·B' + dt) · ln(π·B'/dt + 1) = {:.2f} / {:.3f} · ln({:.3f}) = {:.3f} W/(m²K)\n", 2 * floor.ground_conductivity,
+               std::numbers::pi * floor.characteristic_dimension + u.equivalent_thickness,
+               std::numbers::pi * floor.characteristic_dimension / u.equivalent_thickness + 1.0, u.u_value);
+  fmt::print("Rsi 0.17 (heat flow downwards) and Rse 0.04 m²K/W (ISO 6946). Results depend on the inputs; local building codes and a "
+             "qualified professional decide compliance.\n");
+  return with_output_flushed(0);
+}
+
 }  // namespace
 
 int main(int argc, char** argv) {
@@ -346,11 +429,7 @@ int main(int argc, char** argv) {
   solve_cmd->add_flag("--fixed-mesh", solve.fixed_mesh,
                       "Solve once on the mesh of --density instead of refining to the accuracy targets");
 
-  struct ProjectArgs {
-    std::string file, csv, json, cache, hand_in;
-    int jobs = 0;
-    bool quiet = false, no_cache = false;
-  } project;
+  ProjectArgs project;
   CLI::App* project_cmd = app.add_subcommand(
       "project", "Solve every junction of a project file in parallel: the schedule of ψ, lengths and ψ·l, and H_TB");
   project_cmd->add_option("project", project.file, "Project file (XML, see docs/project-format.md)")->required();
@@ -364,9 +443,7 @@ int main(int argc, char** argv) {
   project_cmd->add_option("--hand-in", project.hand_in,
                           "Write the hand-in set into this folder: index.html (the schedule, linked) and each junction's report");
 
-  struct GroundArgs {
-    double area = 0, perimeter = 0, wall = 0, floor_resistance = 0, soil = 2.0;
-  } ground;
+  GroundArgs ground;
   CLI::App* ground_cmd = app.add_subcommand("ground", "U-value of a slab-on-ground floor by ISO 13370, with its derivation");
   ground_cmd->add_option("--area", ground.area, "Floor area A, m²")->required()->check(finite_range(1e-6, 1e9));
   ground_cmd->add_option("--perimeter", ground.perimeter, "Exposed perimeter P, m")->required()->check(finite_range(1e-6, 1e9));
@@ -471,75 +548,8 @@ int main(int argc, char** argv) {
       return with_output_flushed(finish_variants("Comparison of " + std::to_string(args.inputs.size()) + " details", variants,
                                                  {}, args.csv, args.page, args.inputs));
     }
-    if (*project_cmd) {
-      const Project p = read_project_file(project.file);
-      std::vector<OutputFile> planned;
-      for (const std::string* path : {&project.csv, &project.json})
-        if (!path->empty()) planned.push_back({*path, ""});
-      if (!project.hand_in.empty()) planned.push_back({(std::filesystem::path(project.hand_in) / "index.html").string(), "", true});
-      std::vector<std::string> inputs{project.file};
-      for (const ProjectJunction& j : p.junctions) inputs.push_back(j.detail_file);
-      check_output_paths(planned, inputs);
-      auto progress = project.quiet ? std::function<void(int, int)>() : [](int done, int total) {
-        fmt::print(stderr, "\redgeflux: {}/{} junctions solved{}", done, total, done == total ? "\n" : "");
-      };
-      const std::string cache = project.no_cache ? std::string()
-                                : !project.cache.empty() ? project.cache
-                                                         : (std::filesystem::path(project.file).parent_path() / ".edgeflux-cache").string();
-      // The hand-in set needs every junction's report, so every junction is solved in this run.
-      std::vector<std::string> reports(p.junctions.size());
-      const std::string generated = report_timestamp();
-      CalculationHook build_report;
-      if (!project.hand_in.empty())
-        build_report = [&](std::size_t k, const CrossSection& section, const Calculation& calc) {
-          // The junction's report carries the project's record and the junction's reference.
-          CrossSection in_project = section;
-          in_project.record = record_in_project(section.record, p.record, p.junctions[k].reference);
-          reports[k] = html_report(in_project, calc, report_drawings(in_project, calc), {read_whole_file(section.file), generated, std::nullopt});
-        };
-      const Schedule schedule = run_project(p, {}, project.jobs, progress, cache, build_report);
-      std::vector<OutputFile> files;
-      if (!project.csv.empty()) files.push_back({project.csv, schedule_csv(schedule)});
-      if (!project.json.empty()) files.push_back({project.json, schedule_json(schedule)});
-      if (!project.hand_in.empty()) {
-        std::vector<std::string> links(p.junctions.size());
-        for (std::size_t k = 0; k < p.junctions.size(); ++k)
-          if (!reports[k].empty()) {
-            links[k] = report_file_name(p.junctions[k].reference);
-            files.push_back({(std::filesystem::path(project.hand_in) / links[k]).string(), reports[k], true});
-          }
-        files.push_back({(std::filesystem::path(project.hand_in) / "index.html").string(), schedule_page(schedule, links, generated), true});
-      }
-      check_output_paths(files, inputs);
-      fmt::print("{}", schedule_text(schedule));
-      require_summary_written();
-      write_output_files(files);
-      for (const OutputFile& f : files) fmt::print("Written: {}\n", f.path);
-      return with_output_flushed(schedule.failed == 0 ? 0 : 2);
-    }
-    if (*ground_cmd) {
-      SlabOnGround floor;
-      floor.characteristic_dimension = characteristic_dimension(ground.area, ground.perimeter);
-      floor.wall_thickness = ground.wall;
-      floor.floor_resistance = ground.floor_resistance;
-      floor.ground_conductivity = ground.soil;
-      const GroundFloorU u = slab_on_ground_u(floor);
-      fmt::print("Slab-on-ground floor, ISO 13370\n"
-                 "  B' = A / (0.5·P) = {:.2f} / (0.5 · {:.2f}) = {:.3f} m\n"
-                 "  dt = w + λ·(Rsi + Rf + Rse) = {:.3f} + {:.2f} · ({:.2f} + {:.3f} + {:.2f}) = {:.3f} m\n",
-                 ground.area, ground.perimeter, floor.characteristic_dimension, floor.wall_thickness, floor.ground_conductivity,
-                 floor.interior_resistance, floor.floor_resistance, floor.exterior_resistance, u.equivalent_thickness);
-      if (u.well_insulated)
-        fmt::print("  dt ≥ B' (well insulated): Ug = λ / (0.457·B' + dt) = {:.2f} / ({:.3f} + {:.3f}) = {:.3f} W/(m²K)\n", floor.ground_conductivity,
-                   0.457 * floor.characteristic_dimension, u.equivalent_thickness, u.u_value);
-      else
-        fmt::print("  dt < B': Ug = 2λ / (π·B' + dt) · ln(π·B'/dt + 1) = {:.2f} / {:.3f} · ln({:.3f}) = {:.3f} W/(m²K)\n", 2 * floor.ground_conductivity,
-                   std::numbers::pi * floor.characteristic_dimension + u.equivalent_thickness,
-                   std::numbers::pi * floor.characteristic_dimension / u.equivalent_thickness + 1.0, u.u_value);
-      fmt::print("Rsi 0.17 (heat flow downwards) and Rse 0.04 m²K/W (ISO 6946). Results depend on the inputs; local building codes and a "
-                 "qualified professional decide compliance.\n");
-      return with_output_flushed(0);
-    }
+    if (*project_cmd) return run_project_command(project);
+    if (*ground_cmd) return run_ground(ground);
     if (*materials_cmd) {
       const auto found = search_material_library(material_search);
       fmt::print("{:<28} {:>10} {:>9}  {:<10} {}\n", "id", "λ [W/mK]", "ρ [kg/m³]", "basis", "source");

@@ -83,6 +83,11 @@ inline const char* dimension_system_name(DimensionSystem s) {
   return s == DimensionSystem::internal ? "internal" : s == DimensionSystem::overall_internal ? "overall internal" : "external";
 }
 
+/// The file and command-line word of a system: "internal", "overall-internal", "external".
+inline const char* dimension_system_word(DimensionSystem s) {
+  return s == DimensionSystem::internal ? "internal" : s == DimensionSystem::overall_internal ? "overall-internal" : "external";
+}
+
 /// The system named by its file and command-line word ("internal", "overall-internal", "external").
 inline std::optional<DimensionSystem> dimension_system_from_word(std::string_view word) {
   if (word == "internal") return DimensionSystem::internal;

@@ -9,14 +9,6 @@
 
 namespace edgeflux {
 
-namespace {
-
-const char* system_word(DimensionSystem s) {
-  return s == DimensionSystem::internal ? "internal" : s == DimensionSystem::overall_internal ? "overall-internal" : "external";
-}
-
-}  // namespace
-
 void sum_schedule(Schedule& schedule) {
   schedule.heat_transfer_coefficient = 0;
   schedule.heat_transfer_coefficient_error = 0;
@@ -78,7 +70,7 @@ Schedule run_project(const Project& project, const CalculationOptions& options, 
     } else {
       std::string systems;
       for (std::size_t i = 0; i < row.result.psi.size(); ++i) {
-        systems += (systems.empty() ? "" : ", ") + std::string(system_word(row.result.psi[i].system));
+        systems += (systems.empty() ? "" : ", ") + std::string(dimension_system_word(row.result.psi[i].system));
         if (row.result.psi[i].system == project.system) {
           row.psi = row.result.psi[i].psi;
           if (i < row.result.psi_error.size()) row.psi_error = row.result.psi_error[i];
@@ -88,7 +80,7 @@ Schedule run_project(const Project& project, const CalculationOptions& options, 
         row.error = systems.empty()
                         ? "the detail gives no ψ (it needs flanking elements with lengths, and exactly two environments)"
                         : fmt::format("the detail gives ψ in {} dimensions only, not in the project's {}: add length-{} to its flanking elements",
-                                      systems, system_word(project.system), system_word(project.system));
+                                      systems, dimension_system_word(project.system), dimension_system_word(project.system));
     }
     schedule.rows.push_back(std::move(row));
   }

@@ -3,13 +3,12 @@
 
 #include <nlohmann/json.hpp>
 
+#include "report/text_format.h"
+
 namespace edgeflux {
 namespace {
 nlohmann::ordered_json located(const LocatedTemperature& t) {
   return {{"temperature_c", t.temperature}, {"x_m", t.at.x}, {"y_m", t.at.y}};
-}
-const char* system_key(DimensionSystem s) {
-  return s == DimensionSystem::internal ? "internal" : s == DimensionSystem::overall_internal ? "overall_internal" : "external";
 }
 }  // namespace
 
@@ -48,18 +47,18 @@ std::string json_results(const CrossSection& section, const Calculation& calc) {
       layers.push_back({{"material", l.material}, {"thickness_m", l.thickness}, {"conductivity_w_per_mk", l.conductivity}});
     auto& lengths = entry["lengths_m"] = nlohmann::ordered_json::object();
     for (DimensionSystem s : all_dimension_systems)
-      if (const auto& l = f.length[static_cast<int>(s)]) lengths[system_key(s)] = *l;
+      if (const auto& l = f.length[static_cast<int>(s)]) lengths[dimension_system_key(s)] = *l;
     entry["deviation_from_1d_k"] = f.deviation_from_1d;
     flanking.push_back(entry);
   }
   auto& psi = j["psi_w_per_mk"] = nlohmann::ordered_json::object();
-  for (const PsiValue& p : junction.psi) psi[system_key(p.system)] = p.psi;
-  j["carried_forward_system"] = section.carried_forward ? nlohmann::ordered_json(system_key(*section.carried_forward)) : nullptr;
+  for (const PsiValue& p : junction.psi) psi[dimension_system_key(p.system)] = p.psi;
+  j["carried_forward_system"] = section.carried_forward ? nlohmann::ordered_json(dimension_system_key(*section.carried_forward)) : nullptr;
   if (!junction.pair_psi.empty()) {
     auto& pairs = j["psi_per_environment_pair"] = nlohmann::ordered_json::array();
     for (const PairPsi& p : junction.pair_psi) {
       nlohmann::ordered_json values = nlohmann::ordered_json::object();
-      for (const PsiValue& v : p.psi) values[system_key(v.system)] = v.psi;
+      for (const PsiValue& v : p.psi) values[dimension_system_key(v.system)] = v.psi;
       pairs.push_back({{"environments", {section.environments[p.first].id, section.environments[p.second].id}},
                        {"coupling_coefficient_w_per_mk", p.coupling}, {"flanking_elements", p.elements}, {"psi_w_per_mk", values}});
     }
@@ -130,7 +129,7 @@ std::string json_results(const CrossSection& section, const Calculation& calc) {
   convergence["coupling_coefficient_2d_w_per_mk"] = estimate(conv.coupling_2d);
   auto& psi_errors = convergence["psi_w_per_mk"] = nlohmann::ordered_json::object();
   for (std::size_t i = 0; i < junction.psi.size() && i < conv.psi.size(); ++i)
-    psi_errors[system_key(junction.psi[i].system)] = estimate(conv.psi[i]);
+    psi_errors[dimension_system_key(junction.psi[i].system)] = estimate(conv.psi[i]);
   convergence["min_interior_surface_temperature_c"] = estimate(conv.min_surface_temperature);
   auto& flow_errors = convergence["heat_flow_w_per_m"] = nlohmann::ordered_json::object();
   for (std::size_t e = 0; e < conv.heat_flows.size(); ++e) flow_errors[section.environments[e].id] = estimate(conv.heat_flows[e]);

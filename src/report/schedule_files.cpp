@@ -15,9 +15,6 @@ namespace edgeflux {
 
 namespace {
 
-const char* system_key(DimensionSystem s) {
-  return s == DimensionSystem::internal ? "internal" : s == DimensionSystem::overall_internal ? "overall_internal" : "external";
-}
 
 /// fRsi and the criteria outcome of every kind of surface, e.g. "0.945 criterion met".
 std::string verdict_text(const VariantSummary& v) {
@@ -78,7 +75,7 @@ std::string schedule_text(const Schedule& s) {
 std::string schedule_csv(const Schedule& s) {
   std::string out = fmt::format("reference,description,detail,psi_{}_w_per_mk,psi_error_w_per_mk,length_m,psi_l_w_per_k,assumed_psi_w_per_mk,"
                                 "assumed_source,exceeds_assumed,criteria,lengths_taken_from,error\n",
-                                system_key(s.project.system));
+                                dimension_system_key(s.project.system));
   auto number = [](const std::optional<double>& v) { return v ? fmt::format("{:.9g}", *v) : std::string(); };
   for (const ScheduleRow& r : s.rows) {
     std::string taken;
@@ -102,7 +99,7 @@ std::string schedule_json(const Schedule& s) {
   const JunctionRecord& r = s.project.record;
   j["record"] = {{"project", r.project}, {"client", r.client}, {"site", r.site}, {"drawing", r.drawing}, {"revision", r.revision},
                  {"assessor", r.assessor}, {"checker", r.checker}, {"date", r.date}};
-  j["dimension_system"] = system_key(s.project.system);
+  j["dimension_system"] = dimension_system_key(s.project.system);
   j["envelope_area_m2"] = s.project.envelope_area ? nlohmann::ordered_json(*s.project.envelope_area) : nullptr;
   auto& rows = j["junctions"] = nlohmann::ordered_json::array();
   for (const ScheduleRow& row : s.rows) {

@@ -33,6 +33,10 @@ std::string csv_field(std::string_view text) {
   return quoted + "\"";
 }
 
+const char* dimension_system_key(DimensionSystem s) {
+  return s == DimensionSystem::internal ? "internal" : s == DimensionSystem::overall_internal ? "overall_internal" : "external";
+}
+
 const char* side_name(Side side) {
   return side == Side::interior ? "interior" : side == Side::exterior ? "exterior" : "other";
 }

@@ -15,6 +15,9 @@ std::string xml_escape(std::string_view text);
 /// A CSV field (RFC 4180): quoted, with quotes doubled, when it holds a comma, quote or line break.
 std::string csv_field(std::string_view text);
 
+/// The key of a dimension system in JSON and CSV: "internal", "overall_internal", "external".
+const char* dimension_system_key(DimensionSystem s);
+
 /// "interior", "exterior" or "other".
 const char* side_name(Side side);
 
