@@ -211,6 +211,7 @@ int finish_variants(const std::string& heading, const std::vector<VariantSummary
              "  fRsi from the surface-temperature run (ISO 13788, Rsi 0.25 opaque, 0.13 glazing); required: the highest criterion"
              " (ISO 13788 and any national minimum), each stated in the page and the CSV.\n",
              error_text(largest_error, digits::psi));
+  if (const std::string note = mesh_reuse_note(variants); !note.empty()) fmt::print("  {}\n", note);
   std::vector<OutputFile> files;
   if (!csv_file.empty()) files.push_back({csv_file, variants_csv(variants, parameter_names)});
   if (!page_file.empty()) files.push_back({page_file, variants_page(heading, variants, parameter_names, report_timestamp())});
@@ -296,7 +297,7 @@ std::function<void(int, int)> variant_progress(bool quiet) {
 struct ProjectArgs {
   std::string file, csv, json, cache, hand_in;
   int jobs = 0;
-  bool quiet = false, no_cache = false;
+  bool quiet = false, no_cache = false, from_scratch = false;
 };
 
 struct GroundArgs {
@@ -330,7 +331,9 @@ int run_project_command(const ProjectArgs& project) {
       in_project.record = record_in_project(section.record, p.record, p.junctions[k].reference);
       reports[k] = html_report(in_project, calc, report_drawings(in_project, calc), {read_whole_file(section.file), generated, std::nullopt});
     };
-  const Schedule schedule = run_project(p, {}, project.jobs, progress, cache, build_report);
+  CalculationOptions options;
+  options.reuse_meshes = !project.from_scratch;
+  const Schedule schedule = run_project(p, options, project.jobs, progress, cache, build_report);
   std::vector<OutputFile> files;
   if (!project.csv.empty()) files.push_back({project.csv, schedule_csv(schedule)});
   if (!project.json.empty()) files.push_back({project.json, schedule_json(schedule)});
@@ -440,6 +443,9 @@ int main(int argc, char** argv) {
   project_cmd->add_option("--cache", project.cache,
                           "Folder of results kept between runs (default: .edgeflux-cache beside the project file); unchanged junctions are not solved again");
   project_cmd->add_flag("--no-cache", project.no_cache, "Solve every junction, and keep no results");
+  project_cmd->add_flag("--from-scratch", project.from_scratch,
+                        "Mesh and refine every junction on its own (by default a junction that differs from an earlier "
+                        "one only in conductivities is solved on that one's meshes)");
   project_cmd->add_option("--hand-in", project.hand_in,
                           "Write the hand-in set into this folder: index.html (the schedule, linked) and each junction's report");
 
@@ -462,7 +468,7 @@ int main(int argc, char** argv) {
     std::vector<std::string> inputs, ranges;
     std::string csv, page;
     int jobs = 0;
-    bool quiet = false;
+    bool quiet = false, from_scratch = false;
     AccuracyTarget target;
   } sweep, compare;
   CLI::App* sweep_cmd = app.add_subcommand(
@@ -479,6 +485,9 @@ int main(int argc, char** argv) {
     cmd->add_option("--target", args->target.coupling_relative, "Relative accuracy asked of L2D, default 0.001")
         ->check(finite_range(1e-6, 0.1));
     cmd->add_flag("-q,--quiet", args->quiet, "Do not print progress");
+    cmd->add_flag("--from-scratch", args->from_scratch,
+                  "Mesh and refine every variant on its own (by default a variant that differs from an earlier one only "
+                  "in conductivities is solved on that one's meshes)");
   }
 
   ImportArgs import_args;
@@ -528,6 +537,7 @@ int main(int argc, char** argv) {
       VariantArgs& args = is_sweep ? sweep : compare;
       CalculationOptions options;
       options.target = args.target;
+      options.reuse_meshes = !args.from_scratch;
       if (is_sweep) {
         std::vector<ParameterRange> ranges;
         for (const std::string& r : args.ranges) {

@@ -139,7 +139,8 @@ std::vector<double> triangle_conductivities(const CrossSection& section, const T
   return conductivity;
 }
 
-Calculation calculate_on_mesh(const CrossSection& section, TriMesh mesh, const CalculationOptions& options) {
+Calculation calculate_on_mesh(const CrossSection& section, TriMesh mesh, const CalculationOptions& options,
+                              SteadyConduction* conduction) {
   Calculation calc;
   calc.mesh = std::move(mesh);
   auto start = std::chrono::steady_clock::now();
@@ -149,10 +150,11 @@ Calculation calculate_on_mesh(const CrossSection& section, TriMesh mesh, const C
     heat_loss_rs.push_back(s.resistance);
     temperature_rs.push_back(temperature_run_resistance(section, s));
   }
-  SteadyConduction conduction(calc.mesh, conductivity, options.solve);
-  calc.heat_loss = solve_run(section, calc.mesh, conduction, conductivity, heat_loss_rs);
+  std::optional<SteadyConduction> own;
+  if (!conduction) conduction = &own.emplace(calc.mesh, conductivity, options.solve);
+  calc.heat_loss = solve_run(section, calc.mesh, *conduction, conductivity, heat_loss_rs);
   const bool same_field = temperature_rs == heat_loss_rs;
-  if (!same_field) calc.surface_temperature = solve_run(section, calc.mesh, conduction, conductivity, temperature_rs);
+  if (!same_field) calc.surface_temperature = solve_run(section, calc.mesh, *conduction, conductivity, temperature_rs);
   calc.timings.solve_seconds = seconds_since(start);
 
   start = std::chrono::steady_clock::now();
@@ -165,6 +167,18 @@ Calculation calculate_on_mesh(const CrossSection& section, TriMesh mesh, const C
   calc.junction = junction_results(section, calc.mesh, calc.heat_loss, calc.surface_temperature);
   calc.timings.results_seconds = seconds_since(start);
   return calc;
+}
+
+LadderSolver::LadderSolver(std::shared_ptr<const MeshLadder> ladder, SolveOptions options)
+    : ladder_(std::move(ladder)), options_(options), conduction_(ladder_->levels.size()) {}
+
+SteadyConduction& LadderSolver::conduction(std::size_t level, const std::vector<double>& triangle_conductivity) {
+  std::unique_ptr<SteadyConduction>& c = conduction_.at(level);
+  // Always through set_conductivity, so a variant's matrix is rounded the same way whichever
+  // worker solves it (results do not depend on the number of threads).
+  if (!c) c = std::make_unique<SteadyConduction>(ladder_->levels[level], triangle_conductivity, options_);
+  c->set_conductivity(triangle_conductivity);
+  return *c;
 }
 
 namespace {
@@ -234,7 +248,7 @@ NextMesh next_mesh(const CrossSection& section, const PlanarSubdivision& subdivi
 
 /// The warnings of the whole run: what the reader and the geometry stage noticed about the drawing
 /// first, then a singular heat flux and a target not reached.
-void add_run_warnings(Calculation& calc, const CrossSection& section, const PlanarSubdivision& subdivision,
+void add_run_warnings(Calculation& calc, const CrossSection& section, const std::vector<std::string>& geometry_warnings,
                       const std::optional<Point>& jump, const CalculationOptions& options) {
   if (jump)
     calc.junction.warnings.push_back(fmt::format(
@@ -245,26 +259,78 @@ void add_run_warnings(Calculation& calc, const CrossSection& section, const Plan
     calc.junction.warnings.push_back("the mesh refinement did not reach the accuracy target (" + calc.convergence.stop_reason +
                                      "); the error bars show the accuracy reached");
   std::vector<std::string> drawing = section.warnings;
-  drawing.insert(drawing.end(), subdivision.warnings.begin(), subdivision.warnings.end());
+  drawing.insert(drawing.end(), geometry_warnings.begin(), geometry_warnings.end());
   calc.junction.warnings.insert(calc.junction.warnings.begin(), drawing.begin(), drawing.end());
 }
 
-}  // namespace
+/// Where each level's mesh comes from: meshed and refined here, or taken from a ladder of the same
+/// geometry (and refined on from its last mesh when it runs out). The planar subdivision is made
+/// only when a mesh has to be made.
+class LevelMeshes {
+ public:
+  LevelMeshes(const CrossSection& section, const CalculationOptions& options, LadderSolver* ladder)
+      : section_(section), options_(options), ladder_(ladder), mesh_options_(resolved_mesh_options(section, options)) {
+    if (ladder_) {
+      geometry_warnings_ = ladder_->ladder().geometry_warnings;
+      jump_ = ladder_->ladder().fixed_temperature_jump;
+    }
+  }
 
-Calculation calculate(const CrossSection& section, const CalculationOptions& options) {
+  TriMesh first() {
+    if (ladder_ && !ladder_->ladder().levels.empty()) return ladder_->ladder().levels.front();
+    TriMesh mesh = mesh_cross_section(section_, subdivision(), mesh_options_);
+    jump_ = fixed_temperature_jump(section_, mesh);
+    return mesh;
+  }
+
+  NextMesh next(std::size_t level, const Calculation& calc, const Convergence& convergence) {
+    if (ladder_ && level + 1 < ladder_->ladder().levels.size()) {
+      if (mesh_options_.mesher == MeshSettings::Mesher::grid) mesh_options_.density *= 1.5;  // in step with the ladder
+      return {ladder_->ladder().levels[level + 1], ""};
+    }
+    return next_mesh(section_, subdivision(), calc, convergence, options_, mesh_options_);
+  }
+
+  /// The reused conduction of this level, with the section's conductivities, or null (a mesh of its own).
+  SteadyConduction* conduction(std::size_t level, const TriMesh& mesh) {
+    if (!ladder_ || level >= ladder_->ladder().levels.size()) return nullptr;
+    return &ladder_->conduction(level, triangle_conductivities(section_, mesh));
+  }
+
+  const std::optional<Point>& jump() const { return jump_; }
+  const std::vector<std::string>& geometry_warnings() const { return geometry_warnings_; }
+
+ private:
+  const PlanarSubdivision& subdivision() {
+    if (!subdivision_) {
+      subdivision_ = planar_subdivision(section_);
+      if (!ladder_) geometry_warnings_ = subdivision_->warnings;
+    }
+    return *subdivision_;
+  }
+
+  const CrossSection& section_;
+  const CalculationOptions& options_;
+  LadderSolver* ladder_;
+  MeshOptions mesh_options_;
+  std::optional<PlanarSubdivision> subdivision_;
+  std::vector<std::string> geometry_warnings_;
+  std::optional<Point> jump_;
+};
+
+Calculation refine_until_accurate(const CrossSection& section, const CalculationOptions& options, LadderSolver* ladder,
+                                  MeshLadder* record) {
   const auto overall = std::chrono::steady_clock::now();
   prepare_process_memory();
-  MeshOptions mesh_options = resolved_mesh_options(section, options);
   Convergence convergence;
   convergence.adaptive = options.adaptive;
   convergence.target = options.target;
 
   auto start = std::chrono::steady_clock::now();
-  const PlanarSubdivision subdivision = planar_subdivision(section);
-  TriMesh mesh = mesh_cross_section(section, subdivision, mesh_options);
+  LevelMeshes meshes(section, options, ladder);
+  TriMesh mesh = meshes.first();
   double mesh_seconds = seconds_since(start);
-  const std::optional<Point> jump = fixed_temperature_jump(section, mesh);
-  convergence.singular_heat_flow = jump.has_value();
+  convergence.singular_heat_flow = meshes.jump().has_value();
 
   Calculation calc;
   for (int level = 0;; ++level) {
@@ -274,13 +340,16 @@ Calculation calculate(const CrossSection& section, const CalculationOptions& opt
                         "lower the density or the accuracy target");
     const auto level_start = std::chrono::steady_clock::now();
     const int nodes = mesh.n_points();
+    if (record) record->levels.push_back(mesh);
     try {
-      calc = calculate_on_mesh(section, std::move(mesh), options);
+      SteadyConduction* reused = meshes.conduction(static_cast<std::size_t>(level), mesh);
+      calc = calculate_on_mesh(section, std::move(mesh), options, reused);
     } catch (const std::bad_alloc&) {
       // The levels solved so far keep their results and error bars; without one, nothing is trusted.
       if (level == 0)
         throw std::runtime_error(fmt::format("the memory ran out while solving the first mesh ({} nodes): lower the "
                                              "density, or run on a machine with more memory", nodes));
+      if (record) record->levels.pop_back();
       convergence.stop_reason = fmt::format("stopped before reaching the target: the memory ran out while solving the "
                                             "next mesh ({} nodes)", nodes);
       break;
@@ -296,7 +365,7 @@ Calculation calculate(const CrossSection& section, const CalculationOptions& opt
       break;
     }
     start = std::chrono::steady_clock::now();
-    NextMesh next = next_mesh(section, subdivision, calc, convergence, options, mesh_options);
+    NextMesh next = meshes.next(static_cast<std::size_t>(level), calc, convergence);
     if (!next.mesh) {
       convergence.stop_reason = next.stop_reason;
       break;
@@ -305,9 +374,24 @@ Calculation calculate(const CrossSection& section, const CalculationOptions& opt
     mesh_seconds = seconds_since(start);
   }
   calc.convergence = std::move(convergence);
-  add_run_warnings(calc, section, subdivision, jump, options);
+  add_run_warnings(calc, section, meshes.geometry_warnings(), meshes.jump(), options);
+  if (record) {
+    record->geometry_warnings = meshes.geometry_warnings();
+    record->fixed_temperature_jump = meshes.jump();
+  }
   calc.total_seconds = seconds_since(overall);
   return calc;
+}
+
+}  // namespace
+
+Calculation calculate(const CrossSection& section, const CalculationOptions& options, MeshLadder* record) {
+  if (record) *record = MeshLadder{};
+  return refine_until_accurate(section, options, nullptr, record);
+}
+
+Calculation calculate_on_ladder(const CrossSection& section, const CalculationOptions& options, LadderSolver& solver) {
+  return refine_until_accurate(section, options, &solver, nullptr);
 }
 
 }  // namespace edgeflux

@@ -9,11 +9,14 @@
 #include <chrono>
 #include <filesystem>
 #include <fstream>
+#include <map>
+#include <memory>
 #include <sstream>
 #include <mutex>
 #include <thread>
 
 #include "core/sha256.h"
+#include "pipeline/geometry_signature.h"
 #include "solver/factorisation_runtime.h"
 #include "solver/solve_temperatures.h"
 
@@ -58,55 +61,133 @@ VariantSummary summarise(const std::string& label, const std::string& file, cons
 
 namespace {
 
-/// Runs task(i) for i in [0, n) on `jobs` threads.
-void parallel_for(int n, int jobs, const std::function<void(int)>& task, const std::function<void(int, int)>& progress) {
+/// Runs task(i, worker) for i in [0, n) on `jobs` threads; worker is the thread's number in [0, jobs).
+int parallel_for(int n, int jobs, const std::function<void(int, int)>& task, const std::function<void()>& finished_one) {
   if (jobs <= 0) jobs = std::max(1u, std::thread::hardware_concurrency());
   jobs = std::min(jobs, std::max(n, 1));
   if (jobs > 1) pin_blas_to_one_thread();
-  std::atomic<int> next{0}, done{0};
+  std::atomic<int> next{0};
   std::mutex report;
-  auto worker = [&] {
+  auto worker = [&](int id) {
     for (int i; (i = next++) < n;) {
-      task(i);
-      const int finished = ++done;
-      if (progress) {
+      task(i, id);
+      if (finished_one) {
         std::lock_guard lock(report);
-        progress(finished, n);
+        finished_one();
       }
     }
   };
   std::vector<std::thread> threads;
-  for (int j = 1; j < jobs; ++j) threads.emplace_back(worker);
-  worker();
+  for (int j = 1; j < jobs; ++j) threads.emplace_back(worker, j);
+  worker(0);
   for (std::thread& t : threads) t.join();
+  return jobs;
 }
 
-VariantSummary run_one(const std::string& label, const std::string& file, const ParameterOverrides& overrides,
-                       const CalculationOptions& options, std::size_t index = 0, const CalculationHook& with_calculation = {}) {
+/// One job of a batch on its way: the section read (or why not), and its geometry's signature.
+struct PreparedJob {
+  std::optional<CrossSection> section;
+  std::string signature;
+  std::string input_sha256;
+  std::string error;
+};
+
+PreparedJob prepare(const VariantJob& job, const CalculationOptions& options) {
+  PreparedJob p;
   try {
-    const CrossSection section = read_detail_file(file, overrides, arc_tolerance_for(options.target));
-    CalculationOptions quiet = options;
-    quiet.progress = nullptr;
-    const Calculation calc = calculate(section, quiet);
-    if (with_calculation) with_calculation(index, section, calc);
-    VariantSummary v = summarise(label, file, section, calc);
-    v.parameters = overrides;
-    std::ifstream in(file, std::ios::binary);
+    p.section = read_detail_file(job.file, job.overrides, arc_tolerance_for(options.target));
+    p.signature = geometry_signature(*p.section);
+    std::ifstream in(job.file, std::ios::binary);
     std::ostringstream text;
     text << in.rdbuf();
-    v.input_sha256 = sha256_hex(text.str());
+    p.input_sha256 = sha256_hex(text.str());
+  } catch (const std::exception& e) {
+    p.error = e.what();
+  }
+  return p;
+}
+
+VariantSummary failed(const VariantJob& job, const std::string& error) {
+  VariantSummary v;
+  v.label = job.label;
+  v.file = job.file;
+  v.parameters = job.overrides;
+  v.error = error;
+  return v;
+}
+
+/// Solves one prepared job (on a ladder when given one, recording its own when asked) and summarises it.
+VariantSummary solve_prepared(const VariantJob& job, const PreparedJob& prepared, const CalculationOptions& options,
+                              std::size_t index, const CalculationHook& with_calculation, LadderSolver* ladder,
+                              MeshLadder* record) {
+  if (!prepared.section) return failed(job, prepared.error);
+  try {
+    const CrossSection& section = *prepared.section;
+    CalculationOptions quiet = options;
+    quiet.progress = nullptr;
+    const Calculation calc = ladder ? calculate_on_ladder(section, quiet, *ladder) : calculate(section, quiet, record);
+    if (with_calculation) with_calculation(index, section, calc);
+    VariantSummary v = summarise(job.label, job.file, section, calc);
+    v.parameters = job.overrides;
+    v.input_sha256 = prepared.input_sha256;
     return v;
   } catch (const std::exception& e) {
-    VariantSummary v;
-    v.label = label;
-    v.file = file;
-    v.parameters = overrides;
-    v.error = e.what();
-    return v;
+    return failed(job, e.what());
   }
 }
 
 }  // namespace
+
+std::vector<VariantSummary> run_variants(const std::vector<VariantJob>& batch, const CalculationOptions& options, int jobs,
+                                         const std::function<void(int, int)>& progress, const CalculationHook& with_calculation) {
+  const int n = static_cast<int>(batch.size());
+  std::vector<PreparedJob> prepared(batch.size());
+  parallel_for(n, jobs, [&](int i, int) { prepared[i] = prepare(batch[i], options); }, {});
+
+  // The first job of each geometry leads: it is meshed and refined on its own, and the others of
+  // its geometry are solved on its meshes. Leaders are fixed by job order, so the results do not
+  // depend on the number of threads.
+  std::map<std::string, int> leader_of;
+  std::vector<int> leaders, followers;
+  for (int i = 0; i < n; ++i) {
+    if (!prepared[i].section) {
+      leaders.push_back(i);  // nothing to solve; reported as failed
+      continue;
+    }
+    const auto [at, inserted] = leader_of.emplace(prepared[i].signature, i);
+    (inserted || !options.reuse_meshes ? leaders : followers).push_back(i);
+  }
+
+  std::vector<VariantSummary> results(batch.size());
+  std::vector<std::shared_ptr<const MeshLadder>> ladders(batch.size());
+  int done = 0;
+  auto finished_one = [&] {
+    if (progress) progress(++done, n);
+  };
+  parallel_for(static_cast<int>(leaders.size()), jobs, [&](int k, int) {
+    const int i = leaders[k];
+    auto ladder = std::make_shared<MeshLadder>();
+    results[i] = solve_prepared(batch[i], prepared[i], options, static_cast<std::size_t>(i), with_calculation, nullptr,
+                                options.reuse_meshes ? ladder.get() : nullptr);
+    if (results[i].error.empty() && !ladder->levels.empty()) ladders[i] = std::move(ladder);
+  }, finished_one);
+
+  // One solver per worker and geometry, so each keeps its symbolic factorisations between variants.
+  const int workers = std::max(1, jobs <= 0 ? static_cast<int>(std::max(1u, std::thread::hardware_concurrency())) : jobs);
+  std::vector<std::map<int, LadderSolver>> solvers(workers);
+  parallel_for(static_cast<int>(followers.size()), workers, [&](int k, int worker) {
+    const int i = followers[k];
+    const int leader = leader_of.at(prepared[i].signature);
+    LadderSolver* solver = nullptr;
+    if (ladders[leader]) {
+      auto& mine = solvers[worker];
+      solver = &mine.try_emplace(leader, ladders[leader], options.solve).first->second;
+    }
+    results[i] = solve_prepared(batch[i], prepared[i], options, static_cast<std::size_t>(i), with_calculation, solver, nullptr);
+    if (solver) results[i].meshes_from = batch[leader].label;
+  }, finished_one);
+  return results;
+}
 
 std::vector<VariantSummary> run_sweep(const std::string& file, const std::vector<ParameterRange>& ranges,
                                       const CalculationOptions& options, int jobs,
@@ -122,32 +203,21 @@ std::vector<VariantSummary> run_sweep(const std::string& file, const std::vector
       }
     combinations = std::move(next);
   }
-  std::vector<VariantSummary> results(combinations.size());
-  parallel_for(static_cast<int>(combinations.size()), jobs, [&](int i) {
+  std::vector<VariantJob> batch;
+  for (const ParameterOverrides& combination : combinations) {
     std::string label;
     for (const ParameterRange& range : ranges)
-      label += (label.empty() ? "" : ", ") + fmt::format("{} = {:g}", range.name, combinations[i].at(range.name));
-    results[i] = run_one(label, file, combinations[i], options);
-  }, progress);
-  return results;
-}
-
-std::vector<VariantSummary> run_variants(const std::vector<VariantJob>& batch, const CalculationOptions& options, int jobs,
-                                         const std::function<void(int, int)>& progress, const CalculationHook& with_calculation) {
-  std::vector<VariantSummary> results(batch.size());
-  parallel_for(static_cast<int>(batch.size()), jobs, [&](int i) {
-    results[i] = run_one(batch[i].label, batch[i].file, batch[i].overrides, options, static_cast<std::size_t>(i), with_calculation);
-  }, progress);
-  return results;
+      label += (label.empty() ? "" : ", ") + fmt::format("{} = {:g}", range.name, combination.at(range.name));
+    batch.push_back({label, file, combination});
+  }
+  return run_variants(batch, options, jobs, progress);
 }
 
 std::vector<VariantSummary> run_comparison(const std::vector<std::string>& files, const CalculationOptions& options, int jobs,
                                            const std::function<void(int, int)>& progress) {
-  std::vector<VariantSummary> results(files.size());
-  parallel_for(static_cast<int>(files.size()), jobs, [&](int i) {
-    results[i] = run_one(std::filesystem::path(files[i]).stem().string(), files[i], {}, options);
-  }, progress);
-  return results;
+  std::vector<VariantJob> batch;
+  for (const std::string& file : files) batch.push_back({std::filesystem::path(file).stem().string(), file, {}});
+  return run_variants(batch, options, jobs, progress);
 }
 
 }  // namespace edgeflux

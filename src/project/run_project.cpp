@@ -1,8 +1,10 @@
 #include "project/run_project.h"
 
 #include <fmt/format.h>
+#include <fmt/ranges.h>
 
 #include <cmath>
+#include <map>
 
 #include "pipeline/variants.h"
 #include "project/result_cache.h"
@@ -57,6 +59,12 @@ Schedule run_project(const Project& project, const CalculationOptions& options, 
   for (std::size_t b = 0; b < solved.size(); ++b) results[solved[b]] = fresh[b];
   Schedule schedule;
   schedule.project = project;
+  std::map<std::string, std::vector<std::string>> on_meshes_of;  // junction → junctions solved on its meshes
+  for (const VariantSummary& v : fresh)
+    if (!v.meshes_from.empty()) on_meshes_of[v.meshes_from].push_back(v.label);
+  for (const auto& [leader, followers] : on_meshes_of)
+    schedule.notes.push_back(fmt::format("{} solved on the meshes refined for {} (same geometry, other conductivities), "
+                                         "each with its own error estimate", fmt::join(followers, ", "), leader));
   for (std::size_t k = 0; k < n; ++k) {
     if (!cache_folder.empty() && !cached[k] && results[k].error.empty())
       if (const std::string problem = store_cached_result(cache_folder, keys[k], results[k]); !problem.empty())

@@ -146,6 +146,20 @@ std::string variants_csv(const std::vector<VariantSummary>& variants, const std:
   return out;
 }
 
+std::string mesh_reuse_note(const std::vector<VariantSummary>& variants) {
+  std::map<std::string, int> reused;  // leader's label → variants solved on its meshes
+  for (const VariantSummary& v : variants)
+    if (!v.meshes_from.empty()) ++reused[v.meshes_from];
+  if (reused.empty()) return "";
+  std::string note;
+  for (const auto& [leader, count] : reused)
+    note += fmt::format("{}{} {} solved on the meshes refined for \"{}\"", note.empty() ? "" : "; ", count,
+                        count == 1 ? "variant was" : "variants were", leader);
+  return note + " (same geometry, other conductivities), each with its own error estimate from its own values on "
+                "those meshes, refined further where they were not fine enough for it; --from-scratch meshes every "
+                "variant on its own.";
+}
+
 std::string variants_page(const std::string& heading, const std::vector<VariantSummary>& variants,
                           const std::vector<std::string>& parameter_names, const std::string& generated) {
   const auto systems = systems_present(variants);
@@ -172,6 +186,7 @@ std::string variants_page(const std::string& heading, const std::vector<VariantS
       "(ISO 13788: interior Rsi 0.25 m²K/W opaque, 0.13 glazing); opaque surfaces and glazing/frames are judged apart.</p>",
       xml_escape(heading), EDGEFLUX_VERSION, xml_escape(heading).substr(0, 80), xml_escape(generated), digits::psi,
       error_text(largest_error, digits::psi));
+  if (const std::string note = mesh_reuse_note(variants); !note.empty()) html += "<p>" + xml_escape(note) + "</p>";
   html += "<p><b>Climate of the criteria:</b> ";
   for (const std::string& c : climates) html += xml_escape(c) + (c == *climates.rbegin() ? "" : "; ");
   html += climates.empty() ? "none (no interior/exterior pair)</p>" : "</p>";

@@ -13,6 +13,11 @@ namespace edgeflux {
 /// criterion in words; the climate, the input's SHA-256, nodes, error. `parameter_names` fixes the parameter columns.
 std::string variants_csv(const std::vector<VariantSummary>& variants, const std::vector<std::string>& parameter_names);
 
+/// How the variants were meshed, in one sentence: which ones were solved on the meshes of another
+/// (same geometry, other conductivities), each with its own error estimate; empty when every
+/// variant was meshed on its own.
+std::string mesh_reuse_note(const std::vector<VariantSummary>& variants);
+
 /// The page: a table with every variant, and for sweeps line plots of ψ and fRsi against the first
 /// parameter (one line per value of the second), with the required fRsi drawn. Opaque and glazing
 /// verdicts apart, each criterion in words, the climate, the time `generated`, input hashes, print

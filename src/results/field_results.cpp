@@ -61,6 +61,7 @@ std::optional<double> temperature_at(const TriMesh& mesh, const std::vector<doub
 
 std::vector<std::optional<double>> temperatures_at(const TriMesh& mesh, const std::vector<double>& temperature,
                                                    std::span<const Point> points) {
+  if (points.empty()) return {};
   const TriangleLocator locator(mesh);
   std::vector<std::optional<double>> values;
   values.reserve(points.size());
@@ -107,13 +108,18 @@ FieldResults evaluate_field(const CrossSection& section, const TriMesh& mesh, co
   }
 
   // A probe the mesher made a node (on the 0.01 mm grid) reads its nodal value; others are located.
-  std::vector<Point> probe_points;
-  for (const Probe& probe : section.probes) probe_points.push_back(probe.at);
-  const auto probe_values = temperatures_at(mesh, temperature, probe_points);
+  // (The locator is built only when a probe needs it: it costs as much as the rest of this.)
+  std::vector<Point> located_points;
+  std::vector<int> probe_node(section.probes.size(), -1);
   for (std::size_t k = 0; k < section.probes.size(); ++k) {
+    probe_node[k] = k < mesh.probe_nodes.size() ? mesh.probe_nodes[k] : -1;
+    if (probe_node[k] < 0) located_points.push_back(section.probes[k].at);
+  }
+  const auto located = temperatures_at(mesh, temperature, located_points);
+  for (std::size_t k = 0, next_located = 0; k < section.probes.size(); ++k) {
     const Probe& probe = section.probes[k];
-    const int node = k < mesh.probe_nodes.size() ? mesh.probe_nodes[k] : -1;
-    const std::optional<double> value = node >= 0 ? std::optional<double>(temperature[node]) : probe_values[k];
+    const int node = probe_node[k];
+    const std::optional<double> value = node >= 0 ? std::optional<double>(temperature[node]) : located[next_located++];
     if (!value)
       throw_input_error(probe.where, fmt::format("probe '{}'", probe.name),
                         fmt::format("lies outside the section at {}", section.format_point(probe.at)),

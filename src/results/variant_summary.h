@@ -39,6 +39,9 @@ struct VariantSummary {
   std::string input_sha256;           ///< of the detail file as read
   int nodes = 0;
   double seconds = 0.0;
+  /// The variant whose meshes this one was solved on (same geometry, other conductivities), empty
+  /// when it was meshed and refined on its own.
+  std::string meshes_from;
   std::vector<std::string> warnings;
   std::string error;                  ///< non-empty when this variant could not be calculated
 };

@@ -7,7 +7,9 @@
 #include <Eigen/IterativeLinearSolvers>
 #include <Eigen/SparseCholesky>
 #include <algorithm>
+#include <array>
 #include <chrono>
+#include <stdexcept>
 
 #include "solver/conduction_matrix.h"
 #include "solver/factorisation_runtime.h"
@@ -28,6 +30,10 @@ struct SteadyConduction::State {
   SolveOptions options;
   SparseMatrix conduction;             // K, #P × #P
   std::vector<int> diagonal_position;  // index of K(i, i) in conduction.valuePtr()
+  // For new conductivities on this mesh: each triangle's conductance at λ = 1 and where its nine
+  // entries go in conduction.valuePtr() (made on the first set_conductivity).
+  std::vector<std::array<double, 9>> unit_conductance;
+  std::vector<std::array<int, 9>> entry_position;
   // Symbolic analysis of the reduced matrix, kept while the fixed nodes stay the same.
   std::vector<std::vector<int>> analysed_fixed;
   bool analysed = false;
@@ -52,6 +58,34 @@ SteadyConduction::SteadyConduction(const TriMesh& mesh, const std::vector<double
 }
 
 SteadyConduction::~SteadyConduction() = default;
+
+void SteadyConduction::set_conductivity(const std::vector<double>& triangle_conductivity) {
+  // The pattern is the mesh's (node and neighbours), whatever the conductivities: only the values
+  // change, and each triangle's conductance is linear in its λ.
+  State& st = *state_;
+  const TriMesh& mesh = *st.mesh;
+  SparseMatrix& k = st.conduction;
+  if (st.entry_position.empty()) {
+    st.unit_conductance.resize(mesh.n_triangles());
+    st.entry_position.resize(mesh.n_triangles());
+    for (int t = 0; t < mesh.n_triangles(); ++t) {
+      const auto& tri = mesh.triangles[t];
+      const auto unit = triangle_conductance(mesh.points[tri[0]], mesh.points[tri[1]], mesh.points[tri[2]], 1.0);
+      for (int j = 0; j < 3; ++j)
+        for (int i = 0; i < 3; ++i) {
+          const int* first = k.innerIndexPtr() + k.outerIndexPtr()[tri[j]];
+          const int* last = k.innerIndexPtr() + k.outerIndexPtr()[tri[j] + 1];
+          const int* at = std::lower_bound(first, last, tri[i]);
+          if (at == last || *at != tri[i]) throw std::logic_error("conduction matrix pattern changed on one mesh");
+          st.unit_conductance[t][3 * j + i] = unit[i][j];
+          st.entry_position[t][3 * j + i] = static_cast<int>(at - k.innerIndexPtr());
+        }
+    }
+  }
+  std::fill(k.valuePtr(), k.valuePtr() + k.nonZeros(), 0.0);
+  for (int t = 0; t < mesh.n_triangles(); ++t)
+    for (int e = 0; e < 9; ++e) k.valuePtr()[st.entry_position[t][e]] += triangle_conductivity[t] * st.unit_conductance[t][e];
+}
 
 std::vector<std::vector<int>> fixed_surfaces_per_node(const TriMesh& mesh, const std::vector<double>& surface_resistance) {
   std::vector<std::vector<int>> fixed(mesh.n_points());

@@ -19,6 +19,10 @@ class SteadyConduction {
   SteadyConduction(const SteadyConduction&) = delete;
   SteadyConduction& operator=(const SteadyConduction&) = delete;
 
+  /// New conductivities on the same mesh (a variant of the section with other materials): the
+  /// matrix is assembled again into the same pattern, so the symbolic analysis is kept.
+  void set_conductivity(const std::vector<double>& triangle_conductivity);
+
   /// Temperatures for each load case with these surface resistances (one per surface, 0 = fixed).
   Solution solve(const std::vector<double>& surface_resistance, const std::vector<LoadCase>& load_cases);
 
