@@ -23,6 +23,9 @@ struct Material {
   /// "normative" (a tabulated design value), "typical" (a typical declared value, to be replaced by
   /// the product's own), or empty when λ is given in the detail file.
   std::string basis;
+  /// Relative standard uncertainty of λ for the first-order range of the results (e.g. 0.1 for
+  /// ±10 %), from the file's `uncertainty`; without it results/sensitivity.h's default applies.
+  std::optional<double> relative_uncertainty;
   SourceLocation where;
 };
 

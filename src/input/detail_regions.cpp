@@ -102,7 +102,7 @@ Point DetailReader::parse_point(const XMLElement* e, const char* attribute) cons
 }
 
 void DetailReader::read_material(const XMLElement* e) {
-  allow_attributes(e, {"id", "conductivity", "source", "library"});
+  allow_attributes(e, {"id", "conductivity", "source", "library", "uncertainty"});
   Material m;
   m.id = required_text(e, "id");
   m.where = where(e);
@@ -144,6 +144,13 @@ void DetailReader::read_material(const XMLElement* e) {
   if (!(m.conductivity > 0.0))
     throw_input_error(m.where, describe(e), fmt::format("conductivity {} W/(m·K) is not positive", m.conductivity),
                       "give the design thermal conductivity λ in W/(m·K), greater than zero");
+  if (e->Attribute("uncertainty")) {
+    const double u = required_number(e, "uncertainty");
+    if (!(u > 0.0 && u < 1.0))
+      throw_input_error(m.where, describe(e), fmt::format("uncertainty {} is not a fraction between 0 and 1", u),
+                        "give the relative standard uncertainty of λ as a fraction, e.g. uncertainty=\"0.1\" for ±10 %");
+    m.relative_uncertainty = u;
+  }
   // A hash set: a generated file may define 100 000 materials, and a pairwise check is quadratic.
   if (const auto [it, fresh] = material_lines_.emplace(m.id, m.where.line); !fresh)
     throw_input_error(m.where, describe(e), fmt::format("material id \"{}\" is already used on line {}", m.id, it->second),

@@ -166,6 +166,20 @@ Calculation calculate_on_mesh(const CrossSection& section, TriMesh mesh, const C
                                                     calc.surface_temperature.temperature, calc.surface_temperature.load);
   calc.junction = junction_results(section, calc.mesh, calc.heat_loss, calc.surface_temperature);
   calc.timings.results_seconds = seconds_since(start);
+  if (options.sensitivities) {
+    start = std::chrono::steady_clock::now();
+    // The adjoint of θsi,min: the surface-temperature run's response to a unit source at its node,
+    // with the factorisation that run left behind.
+    std::vector<double> adjoint;
+    if (calc.junction.min_interior_surface)
+      if (const int node = min_surface_node(calc.mesh, *calc.junction.min_interior_surface); node >= 0) {
+        std::vector<double> source(calc.mesh.n_points(), 0.0);
+        source[node] = 1.0;
+        adjoint = conduction->solve_sources(temperature_rs, {source}).front();
+      }
+    calc.sensitivities = sensitivities(section, calc.mesh, calc.heat_loss, calc.surface_temperature, calc.junction, adjoint);
+    calc.sensitivities->seconds = seconds_since(start);
+  }
   return calc;
 }
 

@@ -34,6 +34,9 @@ struct CalculationOptions {
   /// In a batch (sweep, comparison, project): a variant whose geometry matches an earlier one's is
   /// solved on that one's meshes (calculate_on_ladder) instead of meshing and refining its own.
   bool reuse_meshes = true;
+  /// Also the first-order sensitivities of the final level (results/sensitivity.h): one adjoint
+  /// solve with the surface-temperature run's factorisation, and integrals over the fields.
+  bool sensitivities = false;
 };
 
 /// The meshes one calculation refined through, level by level, and what the geometry stage found.

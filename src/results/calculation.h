@@ -7,6 +7,7 @@
 #include "results/convergence.h"
 #include "results/junction_results.h"
 #include "results/run.h"
+#include "results/sensitivity.h"
 
 namespace edgeflux {
 
@@ -21,7 +22,8 @@ struct Calculation {
   Run heat_loss;            ///< the surface resistances of the file (ISO 6946)
   Run surface_temperature;  ///< interior Rsi replaced (ISO 13788): 0.25 opaque, 0.13 glazing
   JunctionResults junction;
-  Convergence convergence;  ///< levels and error estimates (one level when not adaptive)
+  Convergence convergence;
+  std::optional<Sensitivities> sensitivities;  ///< when asked for (CalculationOptions::sensitivities), of the final level  ///< levels and error estimates (one level when not adaptive)
   Timings timings;          ///< of the final level
   double total_seconds = 0.0;
 };

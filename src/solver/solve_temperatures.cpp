@@ -39,6 +39,11 @@ struct SteadyConduction::State {
   bool analysed = false;
   Eigen::CholmodSupernodalLLT<SparseMatrix> cholmod;
   Eigen::SimplicialLDLT<SparseMatrix> ldlt;
+  // The factorisation held by the solver above: for which resistances, and which nodes are unknowns.
+  bool factorised = false;
+  std::vector<double> factorised_resistance;
+  std::vector<int> unknown;
+  SparseMatrix iterative_matrix;  // the reduced matrix, kept only for the conjugate-gradient solver
 };
 
 SteadyConduction::SteadyConduction(const TriMesh& mesh, const std::vector<double>& triangle_conductivity,
@@ -82,6 +87,7 @@ void SteadyConduction::set_conductivity(const std::vector<double>& triangle_cond
         }
     }
   }
+  st.factorised = false;
   std::fill(k.valuePtr(), k.valuePtr() + k.nonZeros(), 0.0);
   for (int t = 0; t < mesh.n_triangles(); ++t)
     for (int e = 0; e < 9; ++e) k.valuePtr()[st.entry_position[t][e]] += triangle_conductivity[t] * st.unit_conductance[t][e];
@@ -231,6 +237,10 @@ Solution SteadyConduction::solve(const std::vector<double>& surface_resistance, 
     }
     st.analysed = ok && st.options.solver != LinearSolver::conjugate_gradient;
     st.analysed_fixed = fixed;
+    st.factorised = ok;
+    st.factorised_resistance = surface_resistance;
+    st.unknown = unknown;
+    if (ok && st.options.solver == LinearSolver::conjugate_gradient) st.iterative_matrix = a;
     if (!ok && info.message.empty()) info.message = "the linear solve did not converge";
   }
   info.ok = ok;
@@ -240,6 +250,48 @@ Solution SteadyConduction::solve(const std::vector<double>& surface_resistance, 
   for (int c = 0; c < n_cases; ++c)
     for (int i = 0; i < n; ++i) solution.temperature[c][i] = reference[c] + (unknown[i] >= 0 ? x(unknown[i], c) : known(i, c));
   return solution;
+}
+
+std::vector<std::vector<double>> SteadyConduction::solve_sources(const std::vector<double>& surface_resistance,
+                                                                 const std::vector<std::vector<double>>& nodal_sources) {
+  State& st = *state_;
+  const int n = st.mesh->n_points();
+  if (!st.factorised || st.factorised_resistance != surface_resistance) {
+    const Solution first = solve(surface_resistance, {LoadCase(surface_resistance.size(), 0.0)});
+    if (!first.info.ok) throw std::runtime_error("numerical failure: " + first.info.message);
+  }
+  std::vector<std::vector<double>> response(nodal_sources.size(), std::vector<double>(n, 0.0));
+  const int n_unknowns = static_cast<int>(std::count_if(st.unknown.begin(), st.unknown.end(), [](int u) { return u >= 0; }));
+  if (n_unknowns == 0 || nodal_sources.empty()) return response;
+  Eigen::MatrixXd rhs = Eigen::MatrixXd::Zero(n_unknowns, static_cast<Eigen::Index>(nodal_sources.size()));
+  for (std::size_t c = 0; c < nodal_sources.size(); ++c)
+    for (int i = 0; i < n; ++i)
+      if (st.unknown[i] >= 0) rhs(st.unknown[i], static_cast<Eigen::Index>(c)) = nodal_sources[c][i];
+  Eigen::MatrixXd x;
+  bool ok = true;
+  switch (st.options.solver) {
+    case LinearSolver::supernodal_cholesky:
+      x = st.cholmod.solve(rhs);
+      ok = st.cholmod.info() == Eigen::Success;
+      break;
+    case LinearSolver::simplicial_ldlt:
+      x = st.ldlt.solve(rhs);
+      ok = st.ldlt.info() == Eigen::Success;
+      break;
+    case LinearSolver::conjugate_gradient: {
+      Eigen::ConjugateGradient<SparseMatrix, Eigen::Lower | Eigen::Upper, Eigen::IncompleteCholesky<double>> cg;
+      cg.setTolerance(1e-13);
+      cg.compute(st.iterative_matrix);
+      x = cg.solve(rhs);
+      ok = cg.info() == Eigen::Success;
+      break;
+    }
+  }
+  if (!ok) throw std::runtime_error("numerical failure: the adjoint solve did not succeed");
+  for (std::size_t c = 0; c < nodal_sources.size(); ++c)
+    for (int i = 0; i < n; ++i)
+      if (st.unknown[i] >= 0) response[c][i] = x(st.unknown[i], static_cast<Eigen::Index>(c));
+  return response;
 }
 
 Solution solve_temperatures(const TriMesh& mesh, const ThermalProblem& problem, const std::vector<LoadCase>& load_cases,

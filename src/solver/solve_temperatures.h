@@ -26,6 +26,13 @@ class SteadyConduction {
   /// Temperatures for each load case with these surface resistances (one per surface, 0 = fixed).
   Solution solve(const std::vector<double>& surface_resistance, const std::vector<LoadCase>& load_cases);
 
+  /// Responses to heat sources at the nodes (W/m per node) with every environment at 0 °C and
+  /// fixed-temperature nodes held at 0: z = (K + R)⁻¹ s. With the resistances of the last solve its
+  /// factorisation is used again (an adjoint solve costs one forward and back substitution).
+  /// Throws std::runtime_error when the system cannot be solved.
+  std::vector<std::vector<double>> solve_sources(const std::vector<double>& surface_resistance,
+                                                 const std::vector<std::vector<double>>& nodal_sources);
+
  private:
   struct State;
   std::unique_ptr<State> state_;
