@@ -122,6 +122,7 @@ int run_solve(const SolveArgs& args) {
   if (!args.quiet) options.progress = [](const std::string& stage) { fmt::print(stderr, "edgeflux: {}…\n", stage); };
   options.adaptive = !args.fixed_mesh;
   options.target = args.target;
+  options.sensitivities = true;
 
   CrossSection section = read_detail_file(args.detail_file, parse_settings(args.parameter_settings), arc_tolerance_for(options.target));
   // The output paths are checked before the solve too, so a long run is not wasted on a bad path.

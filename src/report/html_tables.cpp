@@ -7,6 +7,7 @@
 #include "core/sha256.h"
 #include "physics/surface_resistance.h"
 #include "report/html_parts.h"
+#include "report/sensitivity_tables.h"
 #include "report/text_format.h"
 
 namespace edgeflux::html {
@@ -155,6 +156,7 @@ std::string results_appendix(const CrossSection& section, const Calculation& cal
     add("</table>\n");
   }
 
+  add(sensitivity_html(section, calc));
   add("</section>\n");
   return h;
 }

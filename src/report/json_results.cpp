@@ -141,6 +141,50 @@ std::string json_results(const CrossSection& section, const Calculation& calc) {
                                                {"relative_change", conv.doubling->relative_change},
                                                {"passed", conv.doubling->passed}};
   j["convergence"] = convergence;
+  j["sensitivities"] = nullptr;
+  if (calc.sensitivities) {
+    const Sensitivities& s = *calc.sensitivities;
+    auto& sens = j["sensitivities"] = nlohmann::ordered_json::object();
+    auto optional = [](const std::optional<double>& v) { return v ? nlohmann::ordered_json(*v) : nlohmann::ordered_json(nullptr); };
+    auto& inputs = sens["inputs"] = nlohmann::ordered_json::array();
+    for (const InputSensitivity& in : s.inputs) {
+      const bool material = in.kind == InputSensitivity::Kind::conductivity;
+      nlohmann::ordered_json d_psi = nlohmann::ordered_json::object();
+      for (std::size_t i = 0; i < in.psi.size() && i < junction.psi.size(); ++i) d_psi[dimension_system_key(junction.psi[i].system)] = in.psi[i];
+      const double p = material ? in.value : in.temperature_run_value;
+      inputs.push_back({{"kind", material ? "conductivity" : "surface_resistance"},
+                        {material ? "material" : "surface", in.name},
+                        {"value", in.value},
+                        {"temperature_run_value", material ? nlohmann::ordered_json(nullptr) : nlohmann::ordered_json(in.temperature_run_value)},
+                        {"relative_uncertainty", material ? nlohmann::ordered_json(in.relative_uncertainty) : nlohmann::ordered_json(nullptr)},
+                        {"d_coupling_2d", optional(in.coupling)},
+                        {"elasticity_coupling_2d", in.coupling && calc.heat_loss.field.coupling_2d
+                                                       ? optional(elasticity(*in.coupling, in.value, *calc.heat_loss.field.coupling_2d))
+                                                       : nlohmann::ordered_json(nullptr)},
+                        {"d_psi", d_psi},
+                        {"d_min_surface_temperature", optional(in.min_surface_temperature)},
+                        {"d_temperature_factor", optional(in.temperature_factor)},
+                        {"elasticity_temperature_factor", in.temperature_factor && junction.temperature_factor
+                                                              ? optional(elasticity(*in.temperature_factor, p, *junction.temperature_factor))
+                                                              : nlohmann::ordered_json(nullptr)}});
+    }
+    auto range = [](const FirstOrderRange& r) {
+      return nlohmann::ordered_json{{"value", r.value}, {"independent", r.independent}, {"worst_case", r.worst_case}};
+    };
+    nlohmann::ordered_json psi_ranges = nlohmann::ordered_json::object();
+    for (std::size_t i = 0; i < s.psi.size() && i < junction.psi.size(); ++i) psi_ranges[dimension_system_key(junction.psi[i].system)] = range(s.psi[i]);
+    sens["uncertainty"] = {{"psi", psi_ranges},
+                           {"temperature_factor", s.temperature_factor ? range(*s.temperature_factor) : nlohmann::ordered_json(nullptr)}};
+    sens["verdict_robustness"] = nullptr;
+    if (s.verdict)
+      sens["verdict_robustness"] = {{"surface_kind", s.verdict->kind == SurfaceKind::glazing ? "glazing" : "opaque"},
+                                    {"temperature_factor", s.verdict->temperature_factor},
+                                    {"worst_temperature_factor", s.verdict->worst_temperature_factor},
+                                    {"required_temperature_factor", s.verdict->required_temperature_factor},
+                                    {"still_met", s.verdict->still_met}};
+    sens["energy_identity_relative"] = optional(s.energy_identity_relative);
+    sens["seconds"] = s.seconds;
+  }
   j["warnings"] = junction.warnings;
   j["cautions"] = junction.cautions;
   auto& probes = j["probes"] = nlohmann::ordered_json::array();

@@ -7,6 +7,7 @@
 #include <cctype>
 
 #include "report/number_format.h"
+#include "report/sensitivity_tables.h"
 
 namespace edgeflux {
 
@@ -156,6 +157,11 @@ std::string summary_text(const CrossSection& section, const Calculation& calc) {
     }
   }
 
+  if (const std::string block = sensitivity_text(section, calc); !block.empty()) {
+    line("");
+    out += block;
+  }
+
   if (!field.probes.empty()) {
     line("");
     line("Probe temperatures (heat-loss run)");
@@ -195,8 +201,9 @@ std::string summary_text(const CrossSection& section, const Calculation& calc) {
   const SolveInfo& info = calc.heat_loss.info;
   line(fmt::format("Mesh: {} nodes, {} triangles ({} mesher); solver: {}", calc.mesh.n_points(), calc.mesh.n_triangles(),
                    calc.mesh.mesher, info.solver));
-  line(fmt::format("Time: {:.3f} s in all; final level: mesh {:.3f} s, solve (both runs) {:.3f} s, results {:.3f} s",
-                   calc.total_seconds, calc.timings.mesh_seconds, calc.timings.solve_seconds, calc.timings.results_seconds));
+  line(fmt::format("Time: {:.3f} s in all; final level: mesh {:.3f} s, solve (both runs) {:.3f} s, results {:.3f} s{}",
+                   calc.total_seconds, calc.timings.mesh_seconds, calc.timings.solve_seconds, calc.timings.results_seconds,
+                   calc.sensitivities ? fmt::format(", sensitivities {:.4f} s", calc.sensitivities->seconds) : ""));
   return out;
 }
 
