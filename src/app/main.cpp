@@ -23,6 +23,7 @@
 #include <sstream>
 
 #include "app/output_writer.h"
+#include "app/watch.h"
 #include "core/atomic_file.h"
 #include "core/error.h"
 #include "input/material_library.h"
@@ -153,6 +154,43 @@ int run_solve(const SolveArgs& args) {
   write_output_files(files);
   for (const OutputFile& f : files) fmt::print("Written: {}\n", f.path);
   return 0;
+}
+
+struct WatchArgs {
+  std::string detail_file, report_file;
+  std::vector<std::string> parameter_settings;
+  AccuracyTarget target;
+  int runs = 0;
+  bool quiet = false;
+};
+
+/// `edgeflux watch`: the detail solved on every save, its report page kept current.
+int run_watch(const WatchArgs& args) {
+  WatchSettings settings;
+  settings.detail_file = args.detail_file;
+  settings.overrides = parse_settings(args.parameter_settings);
+  settings.report_file = args.report_file;
+  settings.runs = args.runs;
+  settings.quiet = args.quiet;
+  check_output_paths({{args.report_file, ""}}, {args.detail_file});
+  if (!args.quiet)
+    fmt::print(stderr, "edgeflux watch: solving {} on every save, page {} (open it in a browser; Ctrl-C ends)\n",
+               args.detail_file, args.report_file);
+  return watch_detail(settings, [&] {
+    CalculationOptions options;
+    options.target = args.target;
+    options.sensitivities = true;
+    const CrossSection section = read_detail_file(args.detail_file, settings.overrides, arc_tolerance_for(options.target));
+    const Calculation calc = calculate(section, options);
+    WatchedResult result;
+    result.report_html = html_report(section, calc, report_drawings(section, calc), {read_whole_file(args.detail_file), report_timestamp(), std::nullopt});
+    if (calc.heat_loss.field.coupling_2d) result.summary_line = fmt::format("L2D {} W/(m·K)", fixed(*calc.heat_loss.field.coupling_2d, digits::coupling));
+    for (const PsiValue& p : calc.junction.psi)
+      result.summary_line += fmt::format(", ψ {} {}", dimension_system_name(p.system), fixed(p.psi, digits::psi));
+    if (calc.junction.temperature_factor)
+      result.summary_line += fmt::format(", fRsi {}", fixed(*calc.junction.temperature_factor, digits::temperature_factor));
+    return result;
+  });
 }
 
 /// "name=from:to:steps" into a range.
@@ -450,6 +488,18 @@ int main(int argc, char** argv) {
   project_cmd->add_option("--hand-in", project.hand_in,
                           "Write the hand-in set into this folder: index.html (the schedule, linked) and each junction's report");
 
+  WatchArgs watch;
+  CLI::App* watch_cmd = app.add_subcommand(
+      "watch", "Solve a detail again every time it is saved and keep its HTML report current (the page reloads itself; "
+               "an input error shows in the page)");
+  watch_cmd->add_option("detail", watch.detail_file, "Detail file (XML, see docs/detail-format.md)")->required();
+  watch_cmd->add_option("--report", watch.report_file, "The HTML page to keep current; open it in a browser")->required();
+  watch_cmd->add_option("--set", watch.parameter_settings, "Override a parameter: name=value (repeatable)");
+  watch_cmd->add_option("--target", watch.target.coupling_relative, "Relative accuracy asked of L2D, default 0.001")
+      ->check(finite_range(1e-6, 0.1));
+  watch_cmd->add_option("--runs", watch.runs, "Stop after this many solves (default: run until Ctrl-C)")->check(CLI::Range(0, 1000000));
+  watch_cmd->add_flag("-q,--quiet", watch.quiet, "Print nothing while watching");
+
   GroundArgs ground;
   CLI::App* ground_cmd = app.add_subcommand("ground", "U-value of a slab-on-ground floor by ISO 13370, with its derivation");
   ground_cmd->add_option("--area", ground.area, "Floor area A, m²")->required()->check(finite_range(1e-6, 1e9));
@@ -525,7 +575,7 @@ int main(int argc, char** argv) {
     const int code = with_output_flushed(app.exit(e));  // prints the help or the usage message
     return code == 0 || code == 2 ? code : 1;
   }
-  if (*solve_cmd || *sweep_cmd || *compare_cmd || *conformity_cmd)
+  if (*solve_cmd || *sweep_cmd || *compare_cmd || *conformity_cmd || *watch_cmd)
     if (const auto problem = address_space_too_small()) {
       fmt::print(stderr, "edgeflux: failed: {}\n", *problem);
       return 3;
@@ -560,6 +610,7 @@ int main(int argc, char** argv) {
                                                  {}, args.csv, args.page, args.inputs));
     }
     if (*project_cmd) return run_project_command(project);
+    if (*watch_cmd) return with_output_flushed(run_watch(watch));
     if (*ground_cmd) return run_ground(ground);
     if (*materials_cmd) {
       const auto found = search_material_library(material_search);
