@@ -411,6 +411,27 @@ std::string field_legend(const Box& drawing, const PaperFrame& f, const std::vec
   return out + scale_bar({drawing.x0, extent.y1 + 4}, f, extent);
 }
 
+TemperatureScale temperature_scale(const std::vector<double>& T) {
+  TemperatureScale s;
+  const auto [lo_it, hi_it] = std::minmax_element(T.begin(), T.end());
+  s.t_min = *lo_it, s.t_max = *hi_it;
+  s.step = svg::nice_step(std::max(s.t_max - s.t_min, 1e-6), 14);
+  s.band = s.step / 4.0;  // fine bands read as a continuous field; the isotherms carry the numbers
+  s.lo = std::floor(s.t_min / s.band) * s.band, s.hi = std::max(s.lo + s.band, std::ceil(s.t_max / s.band) * s.band);
+  s.n_bands = std::max(1, static_cast<int>(std::lround((s.hi - s.lo) / s.band)));
+  s.decimals = s.step < 1 ? (s.step < 0.1 ? 2 : 1) : 0;
+  return s;
+}
+
+std::string TemperatureScale::band_colour(int k) const { return hex_colour(colour_at(ColourMap::viridis, (k + 0.5) / n_bands)); }
+
+std::vector<double> TemperatureScale::isotherm_levels() const {
+  std::vector<double> levels;
+  for (double level = std::ceil(t_min / step) * step; level < t_max; level += step)
+    if (level > t_min) levels.push_back(level);
+  return levels;
+}
+
 Isotherm isotherm(const TriMesh& mesh, const PaperFrame& f, const std::vector<double>& T, double level) {
   Isotherm iso{level, {}};
   for (const std::vector<Point>& line : isotherm_lines(mesh, T, level).lines) {

@@ -17,6 +17,7 @@
 #include "report/field_quantities.h"
 #include "report/material_fills.h"
 #include "report/svg_support.h"
+#include "report/colour_map.h"
 #include "report/text_format.h"
 #include "results/isotherms.h"
 
@@ -116,6 +117,26 @@ std::string section_overlay(const CrossSection& section, const TriMesh& mesh, co
 std::string field_legend(const Box& drawing, const PaperFrame& f, const std::vector<std::pair<double, std::string>>& band_colours,
                          const std::vector<std::pair<double, std::string>>& ticks, const std::string& title,
                          const std::string& subtitle, Box& extent);
+
+/// Stroke width (mm) of the filled bands and classes of the field drawings: each fill is also
+/// stroked in its own colour, so no hairline seams show between neighbouring triangles. Set on a
+/// wrapper group, so a picture that re-uses the fills (<use>) can give its own width.
+constexpr double field_seam_width = 0.06;
+
+/// The colour bands and isotherm levels of a temperature drawing: isotherms at a round step
+/// (about 14 over the range), bands a quarter of that, on the viridis map.
+struct TemperatureScale {
+  double t_min = 0, t_max = 0;  ///< range of the field, °C
+  double step = 1;              ///< between isotherms, K
+  double band = 0.25;           ///< width of a colour band, K
+  double lo = 0, hi = 1;        ///< ends of the colour scale, °C (whole bands)
+  int n_bands = 1;
+  int decimals = 0;             ///< of the isotherm labels
+  std::string band_colour(int k) const;
+  /// The isotherm levels strictly inside (t_min, t_max).
+  std::vector<double> isotherm_levels() const;
+};
+TemperatureScale temperature_scale(const std::vector<double>& T);
 
 /// Isotherms of a nodal field at `level`, as paper polylines.
 struct Isotherm {

@@ -49,11 +49,12 @@ Drawing heat_flux_drawing(const CrossSection& section, const Calculation& calc) 
     }
     d += "Z";
   }
-  std::string body;
+  // The classes in a group of their own (id "heat-flux-classes"), which the report's explorable
+  // picture re-uses; the seam width sits on the wrapper, outside what <use> copies.
+  std::string body = fmt::format("<g stroke-width=\"{}\" stroke-linejoin=\"round\"><g id=\"heat-flux-classes\">\n", num(field_seam_width));
   for (int k = 0; k < n_classes; ++k)
-    if (!class_paths[k].empty())
-      body += fmt::format("<path d=\"{}\" fill=\"{}\" stroke=\"{}\" stroke-width=\"0.06\" stroke-linejoin=\"round\"/>\n", class_paths[k],
-                          class_colour(k), class_colour(k));
+    if (!class_paths[k].empty()) body += fmt::format("<path d=\"{}\" fill=\"{}\" stroke=\"{}\"/>\n", class_paths[k], class_colour(k), class_colour(k));
+  body += "</g></g>\n";
   body += section_overlay(section, mesh, f);
 
   // Direction arrows on a regular paper grid, all the same length: the colour gives the size.

@@ -7,6 +7,7 @@
 #include <ctime>
 
 #include "core/utf8.h"
+#include "report/explorable_field.h"
 #include "report/html_parts.h"
 
 namespace edgeflux {
@@ -72,6 +73,7 @@ std::string html_report(const CrossSection& section, const Calculation& calc, co
   if (with_appendices) {
     add(results_appendix(section, calc));
     add(mesh_appendix(section, calc, drawings));
+    add(explorable_field_section(section, calc, drawings));  // continues Appendix B, before Appendix C's page break
     add(method_section(section, calc, provenance));
   } else {
     add("<p class=\"small\">Appendices (heat flows, flanking layer stacks, mesh convergence, further drawings, method, validation and "

@@ -1,5 +1,5 @@
 // The report a consultant hands in: one self-contained HTML file (inline SVG and CSS, nothing
-// fetched, no scripts) that prints to A4.
+// fetched; one inline script, for the explorable field of Appendix B) that prints to A4.
 #pragma once
 
 #include <optional>

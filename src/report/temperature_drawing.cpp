@@ -29,13 +29,10 @@ Drawing temperature_drawing(const CrossSection& section, const Calculation& calc
   const TriangleLocator locator(mesh);
   const SectionHitTest hit{f, locator};
 
-  const auto [lo_it, hi_it] = std::minmax_element(T.begin(), T.end());
-  const double t_min = *lo_it, t_max = *hi_it;
-  const double step = svg::nice_step(std::max(t_max - t_min, 1e-6), 14);
-  const double band = step / 4.0;  // fine bands read as a continuous field; the isotherms carry the numbers
-  const double lo = std::floor(t_min / band) * band, hi = std::max(lo + band, std::ceil(t_max / band) * band);
-  const int n_bands = std::max(1, static_cast<int>(std::lround((hi - lo) / band)));
-  auto band_colour = [&](int k) { return hex_colour(colour_at(ColourMap::viridis, (k + 0.5) / n_bands)); };
+  const TemperatureScale scale = temperature_scale(T);
+  const double step = scale.step, band = scale.band, lo = scale.lo, hi = scale.hi;
+  const int n_bands = scale.n_bands;
+  auto band_colour = [&](int k) { return scale.band_colour(k); };
 
   // Filled isobands: each triangle clipped to every band it spans.
   std::vector<std::string> band_paths(n_bands);
@@ -53,17 +50,17 @@ Drawing temperature_drawing(const CrossSection& section, const Calculation& calc
       d += "Z";
     }
   }
-  std::string body;
+  // The bands in a group of their own (id "temperature-bands"), which the report's explorable
+  // picture re-uses; the seam width sits on the wrapper, outside what <use> copies.
+  std::string body = fmt::format("<g stroke-width=\"{}\" stroke-linejoin=\"round\"><g id=\"temperature-bands\">\n", num(field_seam_width));
   for (int k = 0; k < n_bands; ++k)
-    if (!band_paths[k].empty())
-      body += fmt::format("<path d=\"{}\" fill=\"{}\" stroke=\"{}\" stroke-width=\"0.06\" stroke-linejoin=\"round\"/>\n", band_paths[k], band_colour(k),
-                          band_colour(k));
+    if (!band_paths[k].empty()) body += fmt::format("<path d=\"{}\" fill=\"{}\" stroke=\"{}\"/>\n", band_paths[k], band_colour(k), band_colour(k));
+  body += "</g></g>\n";
   body += section_overlay(section, mesh, f);
 
   // Isotherm lines at the round step.
   std::vector<Isotherm> isotherms;
-  for (double level = std::ceil(t_min / step) * step; level < t_max; level += step)
-    if (level > t_min) isotherms.push_back(isotherm(mesh, f, T, level));
+  for (double level : scale.isotherm_levels()) isotherms.push_back(isotherm(mesh, f, T, level));
   std::string lines_d;
   for (const Isotherm& iso : isotherms)
     for (const auto& line : iso.lines) {
@@ -113,7 +110,7 @@ Drawing temperature_drawing(const CrossSection& section, const Calculation& calc
   for (std::size_t i = 0; i < isotherms.size(); ++i)
     for (const auto& line : isotherms[i].lines)
       for (std::size_t k = 0; k + 1 < line.size(); ++k) all_segments.push_back({static_cast<int>(i), {line[k], line[k + 1]}});
-  const int decimals = step < 1 ? (step < 0.1 ? 2 : 1) : 0;
+  const int decimals = scale.decimals;
   for (std::size_t i = 0; i < isotherms.size(); ++i) {
     const std::string text = svg::label_number(isotherms[i].level, decimals);
     const double w = svg::text_width(text, small_font_size) + 0.6, h = small_font_size * 1.05;

@@ -5,8 +5,8 @@ Usage: browser_check.py REPORT.html RESULTS.json ARTIFACT_FOLDER [CHROMIUM]
 
 Checks: the page loads from file:// with no console error, no uncaught exception and no request
 for anything but the file itself; the key numbers of RESULTS.json (L2D, ψ per system, fRsi) appear
-in the page text as the report formats them; every inline SVG renders with a non-zero size; the
-page prints to PDF. Printed at A4 and at US Letter: no element runs past the printable width, the
+in the page text as the report formats them; every inline SVG shown on screen renders with a
+non-zero size (explorable_check.py drives the explorable picture); the page prints to PDF. Printed at A4 and at US Letter: no element runs past the printable width, the
 junction sheet (the report without its appendices) takes at most two pages, and every appendix
 starts on a page of its own. Saves a full-page screenshot (report.png), the A4 print (report.pdf)
 and the sheet alone (sheet-a4.pdf, sheet-letter.pdf) in ARTIFACT_FOLDER. Exit 0 when all checks pass, 1 when one fails, 2 when the browser cannot be
@@ -247,7 +247,7 @@ def check(report, results_file, artifacts, chromium):
         dt.wait_for("Page.loadEventFired")
         page = dt.call("Runtime.evaluate", returnByValue=True, expression="""(() => ({
             text: document.body.innerText,
-            svgs: Array.from(document.querySelectorAll('svg')).map(s => {
+            svgs: Array.from(document.querySelectorAll('svg:not(.xf-print)')).map(s => {  // the explorable picture's copy shows in print only
               const r = s.getBoundingClientRect(); return {w: r.width, h: r.height, children: s.childElementCount}; }),
             height: document.documentElement.scrollHeight }))()""")["result"]["value"]
         problems = []
@@ -266,8 +266,8 @@ def check(report, results_file, artifacts, chromium):
         for name, text in numbers.items():
             if text not in page["text"]:
                 problems.append(f"{name} {text} (from the JSON) is not in the page text")
-        if len(page["svgs"]) != 5:
-            problems.append(f"expected 5 drawings, the page has {len(page['svgs'])} SVG elements")
+        if len(page["svgs"]) != 6:
+            problems.append(f"expected 5 drawings and the explorable picture, the page shows {len(page['svgs'])} SVG elements")
         for i, s in enumerate(page["svgs"]):
             if not (s["w"] > 10 and s["h"] > 10 and s["children"] > 0):
                 problems.append(f"SVG {i + 1} renders at {s['w']}×{s['h']} px with {s['children']} children")
