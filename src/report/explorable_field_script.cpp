@@ -125,10 +125,18 @@ const char* const explorable_field_script = R"JS(
   const home = data.viewbox.slice(), maxZoom = 64, rings = Array.from(svg.querySelectorAll('.xf-ring'));
   for (const ring of rings) ring.dataset.r = ring.getAttribute('r');
   let view = home.slice();
+  // In the live view of `edgeflux watch` (which reloads the page every two seconds) the view
+  // survives the reload while the picture's extent is the same.
+  const live = document.querySelector('.live-banner') !== null, viewKey = 'xf-view:' + location.pathname;
+  try {
+    const saved = live ? JSON.parse(sessionStorage.getItem(viewKey) || 'null') : null;
+    if (saved && saved.home.join(' ') === home.join(' ')) view = saved.view;
+  } catch (e) {}
   const apply = () => {
     view[0] = Math.min(Math.max(view[0], home[0]), home[0] + home[2] - view[2]);
     view[1] = Math.min(Math.max(view[1], home[1]), home[1] + home[3] - view[3]);
     svg.setAttribute('viewBox', view.join(' '));
+    if (live) try { sessionStorage.setItem(viewKey, JSON.stringify({home, view})); } catch (e) {}
     for (const fill of svg.querySelectorAll('.xf-fill')) fill.setAttribute('stroke-width', data.seam * view[2] / home[2]);
     for (const ring of rings) ring.setAttribute('r', ring.dataset.r * view[2] / home[2]);
     if (cursor.getAttribute('display') !== 'none') cursor.setAttribute('r', 5 / svg.getScreenCTM().a);
@@ -184,6 +192,7 @@ const char* const explorable_field_script = R"JS(
   };
   for (const r of colours) r.addEventListener('change', showColour);
   showColour();
+  if (live) apply();
 })();
 )JS";
 
