@@ -19,13 +19,6 @@ using edgeflux::test::run_program;
 
 namespace {
 
-std::string read_all(const fs::path& p) {
-  std::ifstream in(p, std::ios::binary);
-  std::ostringstream s;
-  s << in.rdbuf();
-  return s.str();
-}
-
 bool has_temporaries(const fs::path& folder) {
   for (const auto& entry : fs::directory_iterator(folder))
     if (entry.path().filename().string().find(".partial") != std::string::npos) return true;
@@ -48,18 +41,18 @@ struct Folder {
 
 TEST_CASE("an output named like the input, directly, through ./ or a symlink, is refused and the input kept") {
   Folder f;
-  const std::string before = read_all(f.detail);
+  const std::string before = edgeflux::test::file_contents(f.detail);
   fs::create_symlink(f.detail, f.path / "link.json");
   for (const fs::path& out : {f.detail, f.path / "." / "wall.xml", f.path / "link.json"}) {
     CAPTURE(out.string());
     const auto run = run_program("solve -q " + f.q(f.detail) + " --json " + f.q(out));
     CHECK(run.exit_code == 2);
     CHECK(run.output.find("is the input file") != std::string::npos);
-    CHECK(read_all(f.detail) == before);
+    CHECK(edgeflux::test::file_contents(f.detail) == before);
   }
   const auto surface_csv = run_program("solve -q " + f.q(f.detail) + " --surface-csv " + f.q(f.detail));
   CHECK(surface_csv.exit_code == 2);
-  CHECK(read_all(f.detail) == before);
+  CHECK(edgeflux::test::file_contents(f.detail) == before);
 }
 
 TEST_CASE("two outputs with one name are refused, and nothing is written") {
@@ -79,7 +72,7 @@ TEST_CASE("a read-only file and a device are refused; a symlink's target is writ
   auto run = run_program("solve -q " + f.q(f.detail) + " --json " + f.q(protected_file));
   CHECK(run.exit_code == 2);
   CHECK(run.output.find("read-only") != std::string::npos);
-  CHECK(read_all(protected_file) == "keep");
+  CHECK(edgeflux::test::file_contents(protected_file) == "keep");
 
   run = run_program("solve -q " + f.q(f.detail) + " --json /dev/null");
   CHECK(run.exit_code == 2);
@@ -89,7 +82,7 @@ TEST_CASE("a read-only file and a device are refused; a symlink's target is writ
   run = run_program("solve -q " + f.q(f.detail) + " --json " + f.q(f.path / "latest.json"));
   CHECK(run.exit_code == 0);
   CHECK(fs::is_symlink(fs::symlink_status(f.path / "latest.json")));
-  CHECK(read_all(f.path / "results.json").find("\"coupling_coefficient_2d_w_per_mk\"") != std::string::npos);
+  CHECK(edgeflux::test::file_contents(f.path / "results.json").find("\"coupling_coefficient_2d_w_per_mk\"") != std::string::npos);
   CHECK(!has_temporaries(f.path));
 }
 
@@ -106,7 +99,7 @@ TEST_CASE("interrupted at any moment, a run leaves no temporary file and no half
                               " --fixed-mesh --density 8 --vtu " + f.q(vtu) + " >/dev/null");
     CHECK(!has_temporaries(f.path));
     // Either no file, or a whole one.
-    if (fs::exists(vtu)) CHECK(read_all(vtu).find("</VTKFile>") != std::string::npos);
+    if (fs::exists(vtu)) CHECK(edgeflux::test::file_contents(vtu).find("</VTKFile>") != std::string::npos);
   }
 }
 
@@ -120,7 +113,7 @@ TEST_CASE("results that cannot be written to standard output end with exit 2 (a 
   std::ofstream(json) << "old";
   const auto with_json = run_program("solve -q " + f.q(f.detail) + " --json " + f.q(json) + " > /dev/full");
   CHECK(with_json.exit_code == 2);
-  CHECK(read_all(json) == "old");
+  CHECK(edgeflux::test::file_contents(json) == "old");
   // Help that cannot be printed is a failure too.
   CHECK(run_program("--help > /dev/full").exit_code == 2);
 }
@@ -166,7 +159,7 @@ TEST_CASE("a hang-up (SIGHUP) while writing leaves no temporary either") {
                               f.q(edgeflux::test::source_path("examples/intermediate-floor.xml")) +
                               " --fixed-mesh --density 8 --vtu " + f.q(vtu) + " >/dev/null");
     CHECK(!has_temporaries(f.path));
-    if (fs::exists(vtu)) CHECK(read_all(vtu).find("</VTKFile>") != std::string::npos);
+    if (fs::exists(vtu)) CHECK(edgeflux::test::file_contents(vtu).find("</VTKFile>") != std::string::npos);
   }
 }
 

@@ -18,17 +18,10 @@ using namespace edgeflux::test;
 
 namespace {
 
-std::string contents(const fs::path& path) {
-  std::ifstream in(path, std::ios::binary);
-  std::ostringstream text;
-  text << in.rdbuf();
-  return text.str();
-}
-
 /// Waits up to a minute for the page to satisfy `ready`; false when it never does.
 bool wait_for(const fs::path& page, const std::function<bool(const std::string&)>& ready) {
   for (int i = 0; i < 600; ++i) {
-    if (fs::exists(page) && ready(contents(page))) return true;
+    if (fs::exists(page) && ready(file_contents(page))) return true;
     std::this_thread::sleep_for(std::chrono::milliseconds(100));
   }
   return false;
@@ -39,7 +32,7 @@ bool wait_for(const fs::path& page, const std::function<bool(const std::string&)
 TEST_CASE("edgeflux watch: solved on start, the error page after a broken save, solved again after the fix") {
   const fs::path folder = scratch_folder("watch");
   const fs::path detail = folder / "floor.xml", page = folder / "floor.html";
-  const std::string good = contents(source_path("examples/intermediate-floor.xml"));
+  const std::string good = file_contents(source_path("examples/intermediate-floor.xml"));
   std::ofstream(detail, std::ios::binary) << good;
   ProgramRun run;
   std::thread watcher([&] { run = run_program("watch '" + detail.string() + "' --report '" + page.string() + "' --runs 3"); });
@@ -47,7 +40,7 @@ TEST_CASE("edgeflux watch: solved on start, the error page after a broken save, 
   // The demo's L2D as the terminal prints it (0.6146 W/(m·K), the value the golden results hold).
   const bool first = wait_for(page, [](const std::string& html) { return html.find("live-banner") != std::string::npos; });
   CHECK(first);
-  const std::string solved = contents(page);
+  const std::string solved = file_contents(page);
   CHECK(solved.find("http-equiv=\"refresh\"") != std::string::npos);
   CHECK(solved.find("0.6146") != std::string::npos);
 
@@ -56,7 +49,7 @@ TEST_CASE("edgeflux watch: solved on start, the error page after a broken save, 
   std::ofstream(detail, std::ios::binary) << broken;
   const bool error_shown = wait_for(page, [](const std::string& html) { return html.find("watch-error") != std::string::npos; });
   CHECK(error_shown);
-  const std::string error = contents(page);
+  const std::string error = file_contents(page);
   CHECK(error.find("bogus") != std::string::npos);
   CHECK(error.find("0.6146") == std::string::npos);  // no stale result beside the error
   CHECK(error.find("http-equiv=\"refresh\"") != std::string::npos);

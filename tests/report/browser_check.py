@@ -309,20 +309,26 @@ def check(report, results_file, artifacts, chromium):
         shutil.rmtree(profile, ignore_errors=True)
 
 
-def main():
-    if len(sys.argv) not in (4, 5):
-        print(__doc__)
+def run_check(name, usage, check_function, n_arguments):
+    """Runs check_function(*arguments, chromium) from the command line: exit 0 passed, 1 failed, 2
+    the browser could not be started or driven (also a failure); the last argument may name chromium."""
+    if len(sys.argv) not in (n_arguments + 1, n_arguments + 2):
+        print(usage)
         return 2
-    chromium = sys.argv[4] if len(sys.argv) == 5 else "/usr/bin/chromium"
+    chromium = sys.argv[n_arguments + 1] if len(sys.argv) == n_arguments + 2 else "/usr/bin/chromium"
     try:
-        check(sys.argv[1], sys.argv[2], sys.argv[3], chromium)
+        check_function(*sys.argv[1:n_arguments + 1], chromium)
     except Failure as e:
-        print("browser check FAILED:\n" + str(e))
+        print(f"{name} FAILED:\n" + str(e))
         return 1
     except (BrowserTrouble, OSError, socket.timeout) as e:
-        print("browser check FAILED: the browser could not be started or driven: " + str(e))
+        print(f"{name} FAILED: the browser could not be started or driven: " + str(e))
         return 2
     return 0
+
+
+def main():
+    return run_check("browser check", __doc__, check, 3)
 
 
 if __name__ == "__main__":

@@ -31,7 +31,6 @@ import math
 import os
 import re
 import shutil
-import socket
 import sys
 import tempfile
 import urllib.parse
@@ -39,7 +38,7 @@ import urllib.request
 import xml.etree.ElementTree as ET
 
 sys.path.insert(0, os.path.dirname(os.path.abspath(__file__)))
-from browser_check import TIMEOUT_S, BrowserTrouble, DevTools, Failure, WebSocket, start_chromium, stop_chromium  # noqa: E402
+from browser_check import TIMEOUT_S, BrowserTrouble, DevTools, Failure, WebSocket, run_check, start_chromium, stop_chromium  # noqa: E402
 
 # Half a unit of the digits shown (θ 2 decimals, |q| 1 decimal), plus 0.001 for where the pointer
 # lands at the largest zoom and the rounding of the embedded data (θ to 1e-5 K, points to 1 µm).
@@ -285,19 +284,7 @@ def check(report, results_file, vtu_file, artifacts, chromium):
 
 
 def main():
-    if len(sys.argv) not in (5, 6):
-        print(__doc__)
-        return 2
-    chromium = sys.argv[5] if len(sys.argv) == 6 else "/usr/bin/chromium"
-    try:
-        check(sys.argv[1], sys.argv[2], sys.argv[3], sys.argv[4], chromium)
-    except Failure as e:
-        print("explorable check FAILED:\n" + str(e))
-        return 1
-    except (BrowserTrouble, OSError, socket.timeout) as e:
-        print("explorable check FAILED: the browser could not be started or driven: " + str(e))
-        return 2
-    return 0
+    return run_check("explorable check", __doc__, check, 4)
 
 
 if __name__ == "__main__":

@@ -3,6 +3,8 @@
 
 #include <cstdio>
 #include <filesystem>
+#include <fstream>
+#include <sstream>
 #include <string>
 #include <sys/wait.h>
 #include <unistd.h>
@@ -36,6 +38,14 @@ inline std::filesystem::path scratch_folder(const std::string& purpose) {
       std::filesystem::temp_directory_path() / ("edgeflux-" + purpose + "-" + std::to_string(::getpid()));
   std::filesystem::create_directories(folder);
   return folder;
+}
+
+/// The whole content of a file, as bytes; empty when it cannot be read.
+inline std::string file_contents(const std::filesystem::path& path) {
+  std::ifstream in(path, std::ios::binary);
+  std::ostringstream text;
+  text << in.rdbuf();
+  return text.str();
 }
 
 }  // namespace edgeflux::test
