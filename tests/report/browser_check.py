@@ -227,6 +227,18 @@ def expected_numbers(results):
     return numbers
 
 
+def first_page(port, domains):
+    """The DevTools session of chromium's first page, with these protocol domains enabled."""
+    with urllib.request.urlopen(f"http://127.0.0.1:{port}/json/list", timeout=TIMEOUT_S) as r:
+        pages = [t for t in json.load(r) if t.get("type") == "page"]
+    if not pages:
+        raise BrowserTrouble("chromium shows no page target")
+    dt = DevTools(WebSocket(pages[0]["webSocketDebuggerUrl"]))
+    for domain in domains:
+        dt.call(domain + ".enable")
+    return dt
+
+
 def check(report, results_file, artifacts, chromium):
     with open(results_file) as f:
         numbers = expected_numbers(json.load(f))
@@ -235,13 +247,7 @@ def check(report, results_file, artifacts, chromium):
     proc = None
     try:
         proc, port = start_chromium(chromium, profile)
-        with urllib.request.urlopen(f"http://127.0.0.1:{port}/json/list", timeout=TIMEOUT_S) as r:
-            pages = [t for t in json.load(r) if t.get("type") == "page"]
-        if not pages:
-            raise BrowserTrouble("chromium shows no page target")
-        dt = DevTools(WebSocket(pages[0]["webSocketDebuggerUrl"]))
-        for domain in ("Page", "Runtime", "Log", "Network"):
-            dt.call(domain + ".enable")
+        dt = first_page(port, ("Page", "Runtime", "Log", "Network"))
         url = "file://" + urllib.parse.quote(os.path.abspath(report))
         dt.call("Page.navigate", url=url)
         dt.wait_for("Page.loadEventFired")

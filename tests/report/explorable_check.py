@@ -34,11 +34,10 @@ import shutil
 import sys
 import tempfile
 import urllib.parse
-import urllib.request
 import xml.etree.ElementTree as ET
 
 sys.path.insert(0, os.path.dirname(os.path.abspath(__file__)))
-from browser_check import TIMEOUT_S, BrowserTrouble, DevTools, Failure, WebSocket, run_check, start_chromium, stop_chromium  # noqa: E402
+from browser_check import Failure, first_page, run_check, start_chromium, stop_chromium  # noqa: E402
 
 # Half a unit of the digits shown (θ 2 decimals, |q| 1 decimal), plus 0.001 for where the pointer
 # lands at the largest zoom and the rounding of the embedded data (θ to 1e-5 K, points to 1 µm).
@@ -144,13 +143,7 @@ def check(report, results_file, vtu_file, artifacts, chromium):
     proc = None
     try:
         proc, port = start_chromium(chromium, profile)
-        with urllib.request.urlopen(f"http://127.0.0.1:{port}/json/list", timeout=TIMEOUT_S) as r:
-            pages = [t for t in json.load(r) if t.get("type") == "page"]
-        if not pages:
-            raise BrowserTrouble("chromium shows no page target")
-        dt = DevTools(WebSocket(pages[0]["webSocketDebuggerUrl"]))
-        for domain in ("Page", "Runtime"):
-            dt.call(domain + ".enable")
+        dt = first_page(port, ("Page", "Runtime"))
         dt.call("Emulation.setDeviceMetricsOverride", width=1000, height=1300, deviceScaleFactor=1, mobile=False)
         dt.call("Page.navigate", url="file://" + urllib.parse.quote(os.path.abspath(report)))
         dt.wait_for("Page.loadEventFired")
