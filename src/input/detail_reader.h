@@ -152,6 +152,9 @@ class DetailReader {
   /// <drawing file="…" units="…"><layer name="…" material="…" paint-order="…"/>…</drawing>: every
   /// closed outline on a mapped layer becomes a region, painted in the drawing's entity order
   /// (layers with a lower paint-order first).
+  /// <cavity>: an air cavity as a solid of the ISO 10077-2 equivalent conductivity, worked out here
+  /// from its outline and heat-flow direction (a material of its own, "cavity: NAME").
+  void read_cavity(const tinyxml2::XMLElement* e, Region region);
   void read_drawing_regions(const XMLElement* e);
 
   void read_environment(const XMLElement* e);

@@ -1,5 +1,7 @@
 // Reading materials, regions (rectangles, polygons with arcs, circles) and regions from drawings.
 #include "input/detail_reader.h"
+#include "geometry/polygon.h"
+#include "physics/cavity.h"
 
 namespace edgeflux {
 
@@ -186,6 +188,9 @@ void DetailReader::read_regions(const XMLElement* parent) {
     } else if (kind == "drawing") {
       read_drawing_regions(e);
       continue;
+    } else if (kind == "cavity") {
+      read_cavity(e, std::move(region));
+      continue;
     } else if (kind == "circle") {
       allow_attributes(e, {"name", "material", "centre", "radius"});
       const Point centre = parse_point(e, "centre");
@@ -200,7 +205,7 @@ void DetailReader::read_regions(const XMLElement* parent) {
         region.outline.push_back(p), section_.chord_points.push_back(p);
     } else {
       throw_input_error(where(e), fmt::format("<{}>", kind),
-                        "only <rectangle>, <polygon>, <circle> and <drawing> belong inside <regions>",
+                        "only <rectangle>, <polygon>, <circle>, <cavity> and <drawing> belong inside <regions>",
                         "describe the area as a rectangle (from, to), a polygon (points, with arcs if curved), a "
                         "circle (centre, radius), or take it from a DXF drawing (<drawing file=\"…\">)");
     }
@@ -209,6 +214,60 @@ void DetailReader::read_regions(const XMLElement* parent) {
     section_.regions.push_back(std::move(region));
     material_refs_.push_back({nullptr, required_text(e, "material"), where(e), describe(e)});
   }
+}
+
+void DetailReader::read_cavity(const XMLElement* e, Region region) {
+  allow_attributes(e, {"name", "points", "heat-flow", "ventilation"});
+  region.outline = parse_outline(e, "points", true);
+  if (region.outline.size() > 1 && region.outline.front().x == region.outline.back().x &&
+      region.outline.front().y == region.outline.back().y)
+    region.outline.pop_back();
+  region.name = optional_text(e, "name", "");
+  if (region.name.empty()) region.name = fmt::format("cavity {}", section_.regions.size() + 1);
+  const std::string flow_word = required_text(e, "heat-flow");
+  const std::string ventilation_word = optional_text(e, "ventilation", "unventilated");
+  if (flow_word != "horizontal" && flow_word != "upward" && flow_word != "downward")
+    throw_input_error(where(e), describe(e), fmt::format("heat-flow \"{}\" is not horizontal, upward or downward", flow_word),
+                      "give the direction the heat crosses the cavity in the section: horizontal (along x), upward or downward");
+  if (ventilation_word == "well-ventilated")
+    throw_input_error(where(e), describe(e), "a well-ventilated cavity is part of the air it opens to, not a solid",
+                      "leave it out of the regions and give its faces a <surface> facing that environment (ISO 10077-2)");
+  if (ventilation_word != "unventilated" && ventilation_word != "slightly-ventilated")
+    throw_input_error(where(e), describe(e), fmt::format("ventilation \"{}\" is not unventilated or slightly-ventilated", ventilation_word),
+                      "unventilated: closed; slightly-ventilated: joined to the outside or inside air by a slit of 2–10 mm");
+  const CavityHeatFlow flow = flow_word == "horizontal" ? CavityHeatFlow::horizontal
+                              : flow_word == "upward"   ? CavityHeatFlow::upward
+                                                        : CavityHeatFlow::downward;
+  double x0 = 1e300, x1 = -1e300, y0 = 1e300, y1 = -1e300;
+  for (Point p : region.outline) x0 = std::min(x0, p.x), x1 = std::max(x1, p.x), y0 = std::min(y0, p.y), y1 = std::max(y1, p.y);
+  const double area = std::abs(signed_area(region.outline));
+  // d along the heat flow, b across it.
+  const double depth = flow == CavityHeatFlow::horizontal ? x1 - x0 : y1 - y0;
+  const double width = flow == CavityHeatFlow::horizontal ? y1 - y0 : x1 - x0;
+  if (!(area > 0.0) || !(depth > 0.0) || !(width > 0.0))
+    throw_input_error(where(e), describe(e), "encloses no area", "give the cavity's outline as at least three points around it");
+  const FrameCavity cavity = frame_cavity(depth, width, area, flow,
+                                          ventilation_word == "unventilated" ? CavityVentilation::unventilated
+                                                                             : CavityVentilation::slightly_ventilated);
+  // The cavity becomes a solid of its own material, whose source states the derivation.
+  Material m;
+  m.id = "cavity: " + region.name;
+  m.conductivity = cavity.conductivity;
+  m.where = where(e);
+  const double mm = 1000.0;
+  m.source = fmt::format(
+      "ISO 10077-2 equivalent conductivity of a{} frame cavity, heat flow {}: area {:.1f} mm², bounding rectangle d {:.1f} × "
+      "b {:.1f} mm, equivalent rectangle d′ {:.2f} × b′ {:.2f} mm; ha {:.3f}, hr {:.3f} W/(m²K); λeq = d′(ha + hr){} = {:.4f} W/(m·K)",
+      ventilation_word == "unventilated" ? "n unventilated" : " slightly ventilated", flow_word, area * mm * mm, depth * mm,
+      width * mm, cavity.depth * mm, cavity.width * mm, cavity.convection, cavity.radiation,
+      ventilation_word == "unventilated" ? "" : " × 2", cavity.conductivity);
+  if (const auto [it, fresh] = material_lines_.emplace(m.id, m.where.line); !fresh)
+    throw_input_error(m.where, describe(e), fmt::format("the name makes the material id \"{}\", already used on line {}", m.id, it->second),
+                      "give each cavity its own name");
+  region.material = section_.materials.size();
+  section_.materials.push_back(std::move(m));
+  section_.regions.push_back(std::move(region));
+  material_refs_.push_back({nullptr, section_.materials.back().id, where(e), describe(e)});
 }
 
 std::string DetailReader::beside_detail_file(const std::string& name) const {

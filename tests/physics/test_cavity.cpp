@@ -61,3 +61,31 @@ TEST_CASE("air layers thinner than the first table row are rejected") {
                   std::invalid_argument);
   CHECK_THROWS_AS(air_layer_conductivity(-0.01), std::invalid_argument);
 }
+
+TEST_CASE("an irregular cavity becomes the rectangle of its area with its bounding rectangle's aspect ratio (ISO 10077-2, "
+          "rule from memory; values by hand)") {
+  // An L-shaped cavity in a 20 × 10 mm bounding rectangle (d = 20 mm along the heat flow), area 150 mm²:
+  // d' = √(150·20/10) = 17.3205 mm, b' = √(150·10/20) = 8.6603 mm;
+  // horizontal: ha = max(0.025/0.0173205, 0.73·10^(1/3)) = max(1.44338, 1.57274) = 1.57274 W/(m²K);
+  // hr = 2.11·(1 − 2 + √5) = 2.60810 W/(m²K); λeq = 0.0173205·(1.57274 + 2.60810) = 0.072414 W/(m·K).
+  const FrameCavity h = frame_cavity(0.020, 0.010, 150e-6, CavityHeatFlow::horizontal, CavityVentilation::unventilated);
+  CHECK(h.depth == doctest::Approx(0.0173205).epsilon(1e-5));
+  CHECK(h.width == doctest::Approx(0.0086603).epsilon(1e-5));
+  CHECK(h.convection == doctest::Approx(1.57274).epsilon(1e-5));
+  CHECK(h.radiation == doctest::Approx(2.60810).epsilon(1e-5));
+  CHECK(h.conductivity == doctest::Approx(0.072414).epsilon(1e-4));
+  // Upward: ha = max(1.44338, 1.14·10^(1/3) = 2.45606) = 2.45606; λeq = 0.0173205·(2.45606 + 2.60810) = 0.087714.
+  CHECK(frame_cavity(0.020, 0.010, 150e-6, CavityHeatFlow::upward, CavityVentilation::unventilated).conductivity ==
+        doctest::Approx(0.087714).epsilon(1e-4));
+  // Downward: ha = C1/d' = 1.44338; λeq = 0.0173205·(1.44338 + 2.60810) = 0.070174.
+  CHECK(frame_cavity(0.020, 0.010, 150e-6, CavityHeatFlow::downward, CavityVentilation::unventilated).conductivity ==
+        doctest::Approx(0.070174).epsilon(1e-4));
+  // Slightly ventilated: twice the unventilated value.
+  CHECK(frame_cavity(0.020, 0.010, 150e-6, CavityHeatFlow::horizontal, CavityVentilation::slightly_ventilated).conductivity ==
+        doctest::Approx(2 * 0.072414).epsilon(1e-4));
+  // A rectangle is its own equivalent rectangle.
+  CHECK(frame_cavity(0.010, 0.020, 200e-6, CavityHeatFlow::horizontal, CavityVentilation::unventilated).conductivity ==
+        doctest::Approx(0.059141).epsilon(1e-5));
+  CHECK_THROWS_AS(frame_cavity(0.010, 0.020, 300e-6, CavityHeatFlow::horizontal, CavityVentilation::unventilated),
+                  std::invalid_argument);
+}
