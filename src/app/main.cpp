@@ -172,6 +172,10 @@ int run_watch(const WatchArgs& args) {
   settings.report_file = args.report_file;
   settings.runs = args.runs;
   settings.quiet = args.quiet;
+  // A file that is not there at the start is a mistyped path, not an edit in progress.
+  if (!std::filesystem::is_regular_file(args.detail_file))
+    throw_input_error({args.detail_file, 0}, "detail file", "does not exist or is not a file",
+                      "check the path; watch re-solves a detail file that exists each time it is saved");
   check_output_paths({{args.report_file, ""}}, {args.detail_file});
   if (!args.quiet)
     fmt::print(stderr, "edgeflux watch: solving {} on every save, page {} (open it in a browser; Ctrl-C ends)\n",

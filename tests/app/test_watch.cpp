@@ -72,3 +72,12 @@ TEST_CASE("the live banner and the reload are added to a report, and hidden in p
   CHECK(page.find("a&amp;b.xml") != std::string::npos);
   CHECK(page.find("@media print{.live-banner{display:none}}") != std::string::npos);
 }
+
+TEST_CASE("edgeflux watch refuses a detail file that is not there, with exit code 2 and no page") {
+  const fs::path folder = scratch_folder("watch-missing");
+  const ProgramRun run = run_program("watch '" + (folder / "missing.xml").string() + "' --report '" + (folder / "page.html").string() + "'");
+  CHECK(run.exit_code == 2);
+  CHECK(run.output.find("does not exist") != std::string::npos);
+  CHECK_FALSE(fs::exists(folder / "page.html"));
+  fs::remove_all(folder);
+}
